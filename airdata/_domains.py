@@ -1,0 +1,72 @@
+"""Valid ranges of the arguments, in one place (see docs/equations.md, "Domains").
+
+Ranges that depend on the constants profile are built from it; the others are fixed.
+"""
+
+from __future__ import annotations
+
+from functools import cache
+
+import numpy as np
+
+from ._inputs import Domain
+from .profiles import Profile
+
+__all__ = [
+    "MACH_MAX", "MACH", "SPEED", "TEMPERATURE", "DELTA_T", "RECOVERY", "IMPACT_PRESSURE",
+    "ELEVATION", "altitude", "pressure", "geometric", "setting",
+]
+
+#: Highest Mach number of every airspeed function (input or derived).
+MACH_MAX = 10.0
+
+MACH = Domain(0.0, MACH_MAX, "", "nonnegative", 0.5)
+#: Calibrated, equivalent and true airspeed.
+SPEED = Domain(0.0, 4000.0, "m/s", "nonnegative", 100.0)
+#: Static and total air temperature.
+TEMPERATURE = Domain(50.0, 5000.0, "K", "positive", 288.15)
+#: Off-standard temperature deviation.
+DELTA_T = Domain(-100.0, 100.0, "K", "any", 0.0)
+#: Temperature recovery factor of a total-air-temperature probe.
+RECOVERY = Domain(0.0, 1.0, "", "nonnegative", 1.0)
+#: Impact pressure pt - ps (the derived Mach number is checked separately).
+IMPACT_PRESSURE = Domain(0.0, 1.0e8, "Pa", "nonnegative", 1000.0)
+#: Station elevation (geopotential) for an altimeter setting: the troposphere.
+ELEVATION = Domain(-5000.0, 11000.0, "m", "any", 0.0)
+
+
+@cache
+def altitude(profile: Profile) -> Domain:
+    """Geopotential altitude, the whole layer model."""
+    return Domain(profile.h_min, profile.h_max, "m", "any", 0.0)
+
+
+@cache
+def geometric(profile: Profile) -> Domain:
+    """Geometric altitude matching the geopotential range."""
+    r0 = profile.r0
+    return Domain(r0 * profile.h_min / (r0 - profile.h_min),
+                  r0 * profile.h_max / (r0 - profile.h_max), "m", "any", 0.0)
+
+
+@cache
+def pressure(profile: Profile) -> Domain:
+    """Static pressure between the top and the bottom of the layer model.
+
+    The ends are the correctly rounded pressures at h_max and h_min, widened where the
+    binary64 kernel of ATM-3 rounds them outward, so that every valid altitude maps to
+    a valid pressure.
+    """
+    from .atmosphere import layer_of_altitude, layer_table, standard_pressure
+
+    t = layer_table(profile)
+    h = np.array([profile.h_max, profile.h_min])
+    p = standard_pressure(h, layer_of_altitude(h, t), t)
+    return Domain(min(profile.p_min, float(p[0])), max(profile.p_max, float(p[1])), "Pa",
+                  "positive", profile.p0)
+
+
+@cache
+def setting(profile: Profile) -> Domain:
+    """Altimeter setting: a pressure altitude within the troposphere layer."""
+    return Domain(profile.base_pressure[1], profile.p_max, "Pa", "positive", profile.p0)

@@ -1,0 +1,269 @@
+"""The standard atmosphere: seven-layer temperature profile, hydrostatic pressure,
+density, speed of sound and viscosity; geopotential and geometric altitude.
+
+Equations ATM-1 .. ATM-8 of docs/equations.md.  Sources: ICAO Doc 7488/3 (1993);
+U.S. Standard Atmosphere 1976 (NOAA-S/T 76-1562), sections 1.2-1.3.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from functools import cache
+from typing import NamedTuple
+
+import numpy as np
+from numpy.typing import NDArray
+
+from . import _domains as dom
+from ._inputs import ArrayLike, FloatOrArray, Inputs
+from .profiles import GAMMA, Profile, get_profile
+
+__all__ = ["Atmosphere", "atmosphere", "geopotential_altitude", "geometric_altitude"]
+
+F64 = NDArray[np.float64]
+
+
+class LayerTable(NamedTuple):
+    """Per-layer constants of one profile as arrays indexed by layer number (0..6).
+
+    ``m = L/Tb`` and ``k = g0/(R L)`` for gradient layers (``k = 0`` in isothermal
+    layers); ``c = g0/(R Tb)`` for isothermal layers (``c = 0`` in gradient layers);
+    ``n = -R L/g0`` (exponent of the inverse); ``sh = -R Tb/g0`` (inverse isothermal
+    scale); ``rho_b`` base densities; ``kd = -R L/(g0 + R L)`` (density inverse).
+    """
+
+    hb: F64
+    lapse: F64
+    tb: F64
+    pb: F64
+    gradient: NDArray[np.bool_]
+    m: F64
+    k: F64
+    c: F64
+    n: F64
+    sh: F64
+    rho_b: F64
+    kd: F64
+
+
+@cache
+def layer_table(profile: Profile) -> LayerTable:
+    """Per-layer constants of ``profile``, derived once."""
+    g0, r = profile.g0, profile.R
+    hb = np.array(profile.layer_base)
+    lapse = np.array(profile.lapse_rate)
+    tb = np.array(profile.base_temperature)
+    pb = np.array(profile.base_pressure)
+    grad = lapse != 0.0
+    safe_l = np.where(grad, lapse, 1.0)
+    m = np.where(grad, lapse / tb, 0.0)
+    k = np.where(grad, g0 / (r * safe_l), 0.0)
+    c = np.where(grad, 0.0, g0 / (r * tb))
+    n = np.where(grad, -(r * lapse) / g0, 0.0)
+    sh = -(r * tb) / g0
+    rho_b = pb / (r * tb)
+    kd = np.where(grad, -(r * lapse) / (g0 + r * lapse), 0.0)
+    tables = (hb, lapse, tb, pb, grad, m, k, c, n, sh, rho_b, kd)
+    for a in tables:
+        a.setflags(write=False)
+    return LayerTable(*tables)
+
+
+def layer_of_altitude(h: F64, t: LayerTable) -> NDArray[np.intp]:
+    """Layer index of each geopotential altitude (layer 0 extends below sea level)."""
+    return np.clip(np.searchsorted(t.hb, h, side="right") - 1, 0, len(t.hb) - 1)
+
+
+def standard_temperature(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
+    """ATM-2: T = Tb + L (h - hb)."""
+    return t.tb[i] + t.lapse[i] * (h - t.hb[i])
+
+
+def standard_pressure(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
+    """ATM-3: p = pb exp(-k log1p(m dh)) (gradient) or pb exp(-c dh) (isothermal).
+
+    Both branches are one expression: in a gradient layer ``c = 0`` and in an
+    isothermal one ``k = m = 0``, so the unused term adds an exact zero.
+    """
+    dh = h - t.hb[i]
+    return t.pb[i] * np.exp(-(t.k[i] * np.log1p(t.m[i] * dh) + t.c[i] * dh))
+
+
+@dataclass(frozen=True)
+class Atmosphere:
+    """State of the atmosphere at one or more altitudes (SI units).
+
+    Attributes
+    ----------
+    temperature : float or ndarray
+        Static air temperature, K.
+    pressure : float or ndarray
+        Static pressure, Pa.
+    density : float or ndarray
+        Density, kg/m3.
+    speed_of_sound : float or ndarray
+        m/s.
+    dynamic_viscosity : float or ndarray
+        Pa s (Sutherland's law).
+    kinematic_viscosity : float or ndarray
+        m2/s.
+    profile : str
+        Name of the constants profile used.
+    """
+
+    temperature: FloatOrArray
+    pressure: FloatOrArray
+    density: FloatOrArray
+    speed_of_sound: FloatOrArray
+    dynamic_viscosity: FloatOrArray
+    kinematic_viscosity: FloatOrArray
+    profile: str
+
+
+def atmosphere(
+    h: ArrayLike,
+    dT: ArrayLike = 0.0,
+    *,
+    profile: Profile | str | None = None,
+    strict: bool = True,
+) -> Atmosphere:
+    """Standard atmosphere at geopotential altitude ``h``, optionally off-standard.
+
+    Parameters
+    ----------
+    h : float or array_like
+        Geopotential altitude, m, in [-5000, 84852].
+    dT : float or array_like, optional
+        Temperature deviation of an off-standard day, K, in [-100, 100].  The
+        pressure is that of the standard day at ``h``; temperature and everything
+        derived from it (density, speed of sound, viscosities) are shifted.
+    profile : Profile or str, optional
+        Constants profile, ``"icao"`` (default) or ``"us1976"``.
+    strict : bool, optional
+        If true (default) raise :class:`DomainError` on the first bad element; if
+        false give NaN outputs for just the bad elements.
+
+    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
+    floats.
+
+    Returns
+    -------
+    Atmosphere
+        Temperature, pressure, density, speed of sound, dynamic and kinematic
+        viscosity, and the profile name.
+
+    Raises
+    ------
+    DomainError
+        ``h`` or ``dT`` NaN, infinite or out of range (``strict=True``).
+
+    Notes
+    -----
+    Equations ATM-2 to ATM-6: T = Tb + L (h - hb) + dT; p from the hydrostatic
+    equation in closed form per layer; rho = p/(R T); a = sqrt(gamma R T);
+    mu = beta T^1.5/(T + S); nu = mu/rho.
+
+    References
+    ----------
+    ICAO Doc 7488/3 (1993); U.S. Standard Atmosphere 1976, NOAA-S/T 76-1562.
+
+    Examples
+    --------
+    >>> round(atmosphere(11000.0).temperature, 2)
+    216.65
+    """
+    prof = get_profile(profile)
+    args = Inputs(strict, h=(h, dom.altitude(prof)), dT=(dT, dom.DELTA_T))
+    t = layer_table(prof)
+    hh = args["h"]
+    i = layer_of_altitude(hh, t)
+    temp = standard_temperature(hh, i, t) + args["dT"]
+    p = standard_pressure(hh, i, t)
+    rho = p / (prof.R * temp)
+    a = np.sqrt((GAMMA * prof.R) * temp)
+    mu = prof.sutherland_beta * temp * np.sqrt(temp) / (temp + prof.sutherland_s)
+    nu = mu / rho
+    return Atmosphere(
+        temperature=args.finish(temp),
+        pressure=args.finish(p),
+        density=args.finish(rho),
+        speed_of_sound=args.finish(a),
+        dynamic_viscosity=args.finish(mu),
+        kinematic_viscosity=args.finish(nu),
+        profile=prof.name,
+    )
+
+
+def geopotential_altitude(
+    z: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
+) -> FloatOrArray:
+    """Geopotential altitude from geometric altitude, ATM-7: h = r0 z/(r0 + z).
+
+    Parameters
+    ----------
+    z : float or array_like
+        Geometric altitude, m, in [-4996.07, 86000.00] (the image of the model's
+        geopotential range).
+    profile : Profile or str, optional
+        Constants profile (supplies r0 = 6 356 766 m).
+    strict : bool, optional
+        Raise on bad input (default) or give NaN for just those elements.
+
+    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
+    floats.
+
+    Returns
+    -------
+    float or ndarray
+        Geopotential altitude, m.
+
+    Raises
+    ------
+    DomainError
+        ``z`` NaN, infinite or out of range.
+
+    References
+    ----------
+    U.S. Standard Atmosphere 1976, eq. 18.
+    """
+    prof = get_profile(profile)
+    args = Inputs(strict, z=(z, dom.geometric(prof)))
+    zz = args["z"]
+    return args.finish(prof.r0 * zz / (prof.r0 + zz))
+
+
+def geometric_altitude(
+    h: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
+) -> FloatOrArray:
+    """Geometric altitude from geopotential altitude, ATM-8: z = r0 h/(r0 - h).
+
+    Parameters
+    ----------
+    h : float or array_like
+        Geopotential altitude, m, in [-5000, 84852].
+    profile : Profile or str, optional
+        Constants profile (supplies r0 = 6 356 766 m).
+    strict : bool, optional
+        Raise on bad input (default) or give NaN for just those elements.
+
+    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
+    floats.
+
+    Returns
+    -------
+    float or ndarray
+        Geometric altitude, m.
+
+    Raises
+    ------
+    DomainError
+        ``h`` NaN, infinite or out of range.
+
+    References
+    ----------
+    U.S. Standard Atmosphere 1976, eq. 18 solved for z.
+    """
+    prof = get_profile(profile)
+    args = Inputs(strict, h=(h, dom.altitude(prof)))
+    hh = args["h"]
+    return args.finish(prof.r0 * hh / (prof.r0 - hh))
