@@ -6,6 +6,7 @@ An engineering and verification aid, not certified flight software.
 from __future__ import annotations
 
 import argparse
+import importlib
 import json
 import sys
 from collections.abc import Sequence
@@ -23,6 +24,10 @@ CAUTION = (
     "Flight software follows its own certification basis (for example DO-178C) and the "
     "authority's rules; local regulations and licensed practice take precedence."
 )
+
+#: Modules that add sub-commands: each has ``register(subparsers)``, which adds its
+#: parsers and sets ``func`` (taking the parsed namespace, returning the exit code).
+SUBCOMMAND_MODULES: tuple[str, ...] = ()
 
 
 def _cmd_demo(args: argparse.Namespace) -> int:
@@ -87,6 +92,8 @@ def build_parser() -> argparse.ArgumentParser:
                       help="altimeter setting in Pa for the baro-corrected altitude")
     demo.add_argument("--json", action="store_true", help="machine-readable output")
     demo.set_defaults(func=_cmd_demo)
+    for module in SUBCOMMAND_MODULES:
+        importlib.import_module(module, __package__).register(sub)
     return parser
 
 
