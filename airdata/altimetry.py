@@ -226,7 +226,11 @@ def altimeter_setting(
     -----
     ALT-3: setting = ps (1 + (p0/ps)^n (L e / T0))^(1/n) with n = R L/g0 and
     L = 0.0065 K/m, the form of the U.S. National Weather Service altimeter-setting
-    formula with this profile's constants, evaluated with log1p/exp.
+    formula with this profile's constants, evaluated with log1p/exp.  The NWS
+    publishes the formula with rounded constants (n = 0.190284, T0 = 288 K) and
+    subtracts 0.3 hPa from the station pressure for the barometer's height; this
+    function does neither, so it differs from an NWS-computed setting by up to about
+    0.2 hPa at a high station.
 
     References
     ----------

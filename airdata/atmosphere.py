@@ -161,7 +161,10 @@ def atmosphere(
     -----
     Equations ATM-2 to ATM-6: T = Tb + L (h - hb) + dT; p from the hydrostatic
     equation in closed form per layer; rho = p/(R T); a = sqrt(gamma R T);
-    mu = beta T^1.5/(T + S); nu = mu/rho.
+    mu = beta T^1.5/(T + S); nu = mu/rho.  T is the molecular-scale temperature of
+    the layer model; above 80 km the U.S. Standard Atmosphere 1976 tables print the
+    kinetic temperature, which is lower by the molecular-weight ratio (186.87 K
+    against 186.946 K at the top), and its viscosity column uses the kinetic value.
 
     References
     ----------
