@@ -1,0 +1,73 @@
+/*
+ * ad_internal.h - internals shared by the source files of the airdata port.
+ *
+ * The real-type switch lives here: with -DAIRDATA_SINGLE every wrapper below calls
+ * the f-suffixed libm function on float, so nothing is promoted to double.  The
+ * wrappers add no rounding of their own: their error is that of the libm function
+ * (glibc documents at most a few ulp for exp, log, log1p, expm1; sqrt is correctly
+ * rounded by IEEE 754).
+ */
+#ifndef AD_INTERNAL_H
+#define AD_INTERNAL_H
+
+#include <math.h>
+
+#include "airdata.h"
+#include "airdata_batch.h"
+#include "ad_constants.h"
+
+/* Number of layers of the standard atmosphere. */
+#define AD_NLAYERS 7
+
+/* Per-layer constants (the LayerTable of airdata/atmosphere.py). */
+typedef struct {
+    ad_real hb;     /* base geopotential altitude, m */
+    ad_real lapse;  /* temperature gradient L, K/m */
+    ad_real tb;     /* base temperature, K */
+    ad_real pb;     /* base pressure, Pa */
+    ad_real m;      /* L/Tb (gradient layers), else 0 */
+    ad_real k;      /* g0/(R L) (gradient layers), else 0 */
+    ad_real c;      /* g0/(R Tb) (isothermal layers), else 0 */
+    ad_real n;      /* -R L/g0 (gradient layers), else 0 */
+    ad_real sh;     /* -R Tb/g0 */
+    ad_real rho_b;  /* base density pb/(R Tb), kg/m3 */
+    ad_real kd;     /* -R L/(g0 + R L) (gradient layers), else 0 */
+    int gradient;   /* 1 for a gradient layer, 0 for an isothermal one */
+} ad_layer;
+
+/* The layer table, defined once in atmosphere.c (read only). */
+extern const ad_layer ad_i_layer[AD_NLAYERS];
+
+#if defined(AIRDATA_SINGLE)
+static inline ad_real ad_exp(ad_real x) { return expf(x); }
+static inline ad_real ad_log(ad_real x) { return logf(x); }
+static inline ad_real ad_log1p(ad_real x) { return log1pf(x); }
+static inline ad_real ad_expm1(ad_real x) { return expm1f(x); }
+static inline ad_real ad_sqrt(ad_real x) { return sqrtf(x); }
+#else
+static inline ad_real ad_exp(ad_real x) { return exp(x); }
+static inline ad_real ad_log(ad_real x) { return log(x); }
+static inline ad_real ad_log1p(ad_real x) { return log1p(x); }
+static inline ad_real ad_expm1(ad_real x) { return expm1(x); }
+static inline ad_real ad_sqrt(ad_real x) { return sqrt(x); }
+#endif
+
+/* A quiet NaN of the real type. */
+static inline ad_real ad_nan(void) { return (ad_real)NAN; }
+
+/* domains.c: status of x against an argument domain (airdata/_inputs.py classify). */
+ad_status ad_i_check(ad_real x, ad_domain_id domain);
+
+/* atmosphere.c */
+int ad_i_layer_of_altitude(ad_real h);
+ad_real ad_i_standard_pressure(ad_real h, int i);
+
+/* altimetry.c */
+ad_real ad_i_altitude_of_pressure(ad_real p);
+ad_real ad_i_altitude_of_density(ad_real p, ad_real temp, ad_real rho);
+
+/* pitot.c */
+ad_real ad_i_ratio_from_mach(ad_real m);
+ad_real ad_i_mach_from_ratio(ad_real x);
+
+#endif /* AD_INTERNAL_H */
