@@ -1,0 +1,227 @@
+"""Sub-commands ``airdata limits`` (envelope table of an aircraft file) and
+``airdata budget`` (sensor error budget over an altitude by CAS grid).
+
+Registered by :mod:`airdata.cli` through ``SUBCOMMAND_MODULES``.
+"""
+
+from __future__ import annotations
+
+import argparse
+import json
+import sys
+from typing import Any
+
+import numpy as np
+
+from .profiles import PROFILES
+from .units import from_si, to_si
+
+__all__ = ["register"]
+
+_KT = 1852.0 / 3600.0
+_FT = 0.3048
+
+
+def _float_list(text: str) -> list[float]:
+    """A comma-separated list of numbers, or START:STOP:STEP (STOP included)."""
+    try:
+        if ":" in text:
+            start, stop, step = (float(p) for p in text.split(":"))
+            if step <= 0 or stop < start:
+                raise ValueError
+            n = int(np.floor((stop - start) / step + 1e-9)) + 1
+            return [start + k * step for k in range(n)]
+        return [float(p) for p in text.split(",") if p.strip()]
+    except ValueError:
+        raise argparse.ArgumentTypeError(
+            f"{text!r}: expected a comma-separated list or START:STOP:STEP") from None
+
+
+def _dump(obj: dict[str, Any]) -> None:
+    json.dump(obj, sys.stdout, indent=2, allow_nan=True)
+    sys.stdout.write("\n")
+
+
+# ------------------------------------------------------------------------------ limits
+
+
+def _cmd_limits(args: argparse.Namespace) -> int:
+    from .cli import CAUTION
+    from .limits import envelope, plot_envelope
+
+    alts = None if args.alt_ft is None else to_si(np.asarray(args.alt_ft), "ft")
+    env = envelope(args.aircraft_file, alts, dT=args.dT, load_factor=args.load_factor,
+                   profile=args.profile)
+    if args.plot:
+        plot_envelope(env, args.plot)
+    if args.json:
+        _dump(env.as_dict())
+        return 0
+    ac = env.aircraft
+    wl, wh = ac.weights()
+    print(f"Speed envelope of '{ac.name}'")
+    print(f"  constants profile {env.profile}, standard day {env.dT:+g} K, "
+          f"load factor {env.load_factor:g}")
+    print(f"  mass {ac.mass_min:,.0f} .. {ac.mass_max:,.0f} kg (weight {wl:,.0f} .. "
+          f"{wh:,.0f} N), wing area {ac.wing_area:g} m2, CLmax {ac.cl_max:g}")
+    print(f"  CAS limit {from_si(ac.cas_limit, 'kt'):.1f} kt, Mach limit {ac.mach_limit:.3f}, "
+          f"crossover at {from_si(env.crossover_altitude, 'ft'):,.0f} ft, "
+          f"maximum altitude {from_si(env.ceiling, 'ft'):,.0f} ft (pressure altitude)")
+    print()
+    groups = (("stall, heaviest", env.stall_heavy), ("stall, lightest", env.stall_light),
+              ("maximum operating", env.max_operating))
+    head1 = f"{'Hp':>7} {'ps':>7} {'SAT':>6} "
+    head2 = f"{'ft':>7} {'hPa':>7} {'degC':>6} "
+    for title, _ in groups:
+        head1 += f"| {title:<25}"
+        head2 += f"| {'CAS':>5} {'EAS':>5} {'TAS':>5} {'Mach':>6} "
+    head1 += "| by"
+    head2 += "|"
+    print(head1)
+    print(head2 + "   (speeds in kt)")
+    for i in range(env.altitude.size):
+        row = (f"{from_si(env.altitude[i], 'ft'):7.0f} {env.pressure[i] / 100.0:7.1f} "
+               f"{from_si(env.sat[i], 'degC'):6.1f} ")
+        for _, s in groups:
+            row += (f"| {s.cas[i] / _KT:5.1f} {s.eas[i] / _KT:5.1f} {s.tas[i] / _KT:5.1f} "
+                    f"{s.mach[i]:6.3f} ")
+        row += "| " + ("Mach" if env.mach_governs[i] else "CAS")
+        if env.above_ceiling[i]:
+            row += " (above maximum altitude)"
+        print(row)
+    if args.plot:
+        print(f"\nchart written to {args.plot}")
+    print(f"\n{CAUTION}")
+    return 0
+
+
+# ------------------------------------------------------------------------------ budget
+
+
+def _cmd_budget(args: argparse.Namespace) -> int:
+    from .budget import DISPLAY_UNITS, OUTPUTS, SensorAccuracy, error_budget, plot_budget
+    from .cli import CAUTION
+
+    outputs = OUTPUTS if args.outputs is None else tuple(args.outputs.split(","))
+    for o in outputs:
+        if o not in OUTPUTS:
+            raise ValueError(f"unknown output {o!r}: choose from {', '.join(OUTPUTS)}")
+    acc = SensorAccuracy(
+        ps_bias=args.ps_bias * 100.0, ps_noise=args.ps_noise * 100.0,
+        pitot_bias=args.pitot_bias * 100.0, pitot_noise=args.pitot_noise * 100.0,
+        tat_bias=args.tat_bias, tat_noise=args.tat_noise)
+    method = "monte_carlo" if args.monte_carlo else "linear"
+    bud = error_budget(to_si(np.asarray(args.alt_ft), "ft"),
+                       to_si(np.asarray(args.cas_kt), "kt"), acc, pitot=args.pitot_sensor,
+                       recovery=args.recovery, dT=args.dT, method=method,
+                       samples=args.monte_carlo or 2, seed=args.seed, profile=args.profile)
+    if args.plot:
+        plot_budget(bud, outputs, quantity=args.quantity, path=args.plot)
+    if args.json:
+        _dump(bud.as_dict())
+        return 0
+    alt_ft = np.asarray(from_si(bud.altitude, "ft"))
+    cas_kt = np.asarray(from_si(bud.cas, "kt"))
+    print(f"Air-data error budget, constants profile {bud.profile}, standard day "
+          f"{bud.dT:+g} K, TAT recovery {bud.recovery:g}, pitot sensor: "
+          + ("impact pressure (differential)" if bud.pitot == "qc"
+             else "total pressure (absolute)"))
+    print("\nPressure altitude per hPa of static-pressure error:")
+    for h, s in zip(alt_ft, bud.altitude_per_ps, strict=True):
+        print(f"  {h:8.0f} ft   {-s * 100.0 / _FT:8.2f} ft/hPa")
+    name = "impact" if bud.pitot == "qc" else "total"
+    print(f"\nCAS per hPa of {name}-pressure error:")
+    for v, s in zip(cas_kt, bud.cas_per_qc, strict=True):
+        print(f"  {v:6.0f} kt   {s * 100.0 / _KT:8.3f} kt/hPa")
+    if not (acc.bias.any() or acc.noise.any()):
+        print("\nNo sensor accuracies given (--ps-noise, --pitot-bias, ...): "
+              "sensitivities only.")
+        print(f"\n{CAUTION}")
+        return 0
+    print(f"\nSensors: static {args.ps_bias:+g} hPa bias, {args.ps_noise:g} hPa noise (1 sd); "
+          f"{bud.pitot} {args.pitot_bias:+g} hPa, {args.pitot_noise:g} hPa; "
+          f"TAT {args.tat_bias:+g} K, {args.tat_noise:g} K")
+    how = ("linear propagation" if method == "linear"
+           else f"Monte Carlo, {bud.samples} samples, seed {bud.seed}")
+    data = getattr(bud, args.quantity)
+    for o in outputs:
+        unit = DISPLAY_UNITS[o]
+        z = data[o] if unit in ("1", "K") else np.asarray(from_si(data[o], unit))
+        fmt = "{:9.4f}" if unit == "1" else "{:9.2f}"
+        print(f"\n{o.replace('_', ' ')}: {args.quantity} error, "
+              f"{'Mach' if unit == '1' else unit} ({how}); rows Hp ft, columns CAS kt")
+        print(f"{'':>8} " + " ".join(f"{v:9.0f}" for v in cas_kt))
+        for i, h in enumerate(alt_ft):
+            print(f"{h:8.0f} " + " ".join(fmt.format(x) for x in z[i]))
+    if args.plot:
+        print(f"\nchart written to {args.plot}")
+    print(f"\n{CAUTION}")
+    return 0
+
+
+def register(subparsers: Any) -> None:
+    """Add the ``limits`` and ``budget`` sub-commands to the ``airdata`` parser."""
+    from .cli import CAUTION
+
+    lim = subparsers.add_parser(
+        "limits", help="speed envelope of an aircraft file (stall, max operating, ceiling)",
+        description="Tabulate the stall speeds at the lightest and heaviest weight, the "
+                    "maximum operating speed (lower of the CAS and Mach limits) and the "
+                    "maximum altitude of an aircraft described in an airdata-aircraft/1 "
+                    "TOML file, in CAS, EAS, TAS and Mach against pressure altitude.",
+        epilog=CAUTION)
+    lim.add_argument("aircraft_file", metavar="AIRCRAFT_FILE",
+                     help="aircraft data file (see examples/demo_aircraft.toml)")
+    lim.add_argument("--alt-ft", type=_float_list, default=None, metavar="LIST",
+                     help="pressure altitudes in ft, 'a,b,c' or START:STOP:STEP "
+                          "(default: every 2000 ft up to the maximum altitude)")
+    lim.add_argument("--dT", type=float, default=0.0, metavar="K",
+                     help="temperature deviation from the standard day, K (default 0)")
+    lim.add_argument("--load-factor", type=float, default=1.0, metavar="N",
+                     help="load factor of the stall speeds (default 1)")
+    lim.add_argument("--profile", choices=sorted(PROFILES), default="icao",
+                     help="constants profile (default: icao)")
+    lim.add_argument("--plot", metavar="FILE", default=None,
+                     help="write a chart of the envelope (.png, .svg, .pdf; needs matplotlib)")
+    lim.add_argument("--json", action="store_true", help="machine-readable output (SI units)")
+    lim.set_defaults(func=_cmd_limits)
+
+    bud = subparsers.add_parser(
+        "budget", help="sensor error budget over an altitude x CAS grid",
+        description="Propagate static-pressure, pitot-pressure and TAT sensor errors (bias "
+                    "and 1-sd noise) to pressure altitude, CAS, Mach, TAS, SAT and EAS over "
+                    "a grid of pressure altitude and CAS on a standard day, linearly or by "
+                    "Monte Carlo.",
+        epilog=CAUTION)
+    bud.add_argument("--alt-ft", type=_float_list, default=_float_list("0:40000:5000"),
+                     metavar="LIST", help="pressure altitudes, ft (default 0:40000:5000)")
+    bud.add_argument("--cas-kt", type=_float_list, default=_float_list("100:350:50"),
+                     metavar="LIST", help="calibrated airspeeds, kt (default 100:350:50)")
+    bud.add_argument("--pitot-sensor", choices=("qc", "pt"), default="qc",
+                     help="second pressure sensor: differential impact pressure (qc, default) "
+                          "or absolute total pressure (pt)")
+    for key, unit, what in (("ps", "hPa", "static pressure"), ("pitot", "hPa", "pitot sensor"),
+                            ("tat", "K", "total air temperature")):
+        bud.add_argument(f"--{key}-bias", type=float, default=0.0, metavar=unit,
+                         help=f"{what} bias, {unit} (default 0)")
+        bud.add_argument(f"--{key}-noise", type=float, default=0.0, metavar=unit,
+                         help=f"{what} noise standard deviation, {unit} (default 0)")
+    bud.add_argument("--recovery", type=float, default=1.0, metavar="R",
+                     help="TAT probe recovery factor (default 1)")
+    bud.add_argument("--dT", type=float, default=0.0, metavar="K",
+                     help="temperature deviation from the standard day, K (default 0)")
+    bud.add_argument("--monte-carlo", type=int, default=0, metavar="N",
+                     help="sample the full chain N times per grid point instead of "
+                          "linear propagation")
+    bud.add_argument("--seed", type=int, default=0, help="Monte Carlo seed (default 0)")
+    bud.add_argument("--quantity", choices=("rms", "sd", "shift"), default="rms",
+                     help="what the tables and plot show (default rms)")
+    bud.add_argument("--outputs", default=None, metavar="LIST",
+                     help="comma-separated outputs (default: pressure_altitude,cas,mach,"
+                          "tas,sat,eas)")
+    bud.add_argument("--profile", choices=sorted(PROFILES), default="icao",
+                     help="constants profile (default: icao)")
+    bud.add_argument("--plot", metavar="FILE", default=None,
+                     help="write error-budget maps (.png, .svg, .pdf; needs matplotlib)")
+    bud.add_argument("--json", action="store_true", help="machine-readable output (SI units)")
+    bud.set_defaults(func=_cmd_budget)
