@@ -1,0 +1,143 @@
+"""``reduce --plot``: the main outputs against time, as plain engineering charts.
+
+matplotlib is an optional extra, imported only when a plot is asked for.  The samples
+kept for the chart are bounded (:class:`Collector`): on a long file every k-th row is
+kept, k doubling whenever the bound is reached, so memory stays flat.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+import numpy as np
+from numpy.typing import NDArray
+
+from .. import units as u
+from ..status import Status
+
+__all__ = ["PlotUnavailableError", "check_available", "Collector", "draw"]
+
+_FIELDS = ("x", "hp", "hbaro", "cas", "eas", "tas", "mach", "sat", "tat", "status")
+
+
+class PlotUnavailableError(RuntimeError):
+    """matplotlib is not installed."""
+
+
+def check_available() -> None:
+    """Raise :class:`PlotUnavailableError` with advice when matplotlib cannot be imported."""
+    try:
+        import matplotlib  # noqa: F401
+    except ImportError:
+        raise PlotUnavailableError(
+            "--plot needs matplotlib, which is not installed: pip install matplotlib "
+            "(or run without --plot)") from None
+
+
+class Collector:
+    """Samples kept for the chart: at most ``limit``, every ``stride``-th row.
+
+    Parameters
+    ----------
+    limit : int
+        Most samples kept.
+    plan : object
+        The reduce plan (tells whether a time column exists and its unit).
+    units : dict of str to str
+        Output unit per dimension.
+    """
+
+    def __init__(self, limit: int, plan: Any, units: dict[str, str]) -> None:
+        self.limit = limit
+        self.stride = 1
+        self.next_row = 0
+        self.units = units
+        time_col = plan.roles.get("time")
+        self.x_label = (f"{time_col.name} [{plan.role_units['time']}]".replace(" []", "")
+                        if time_col is not None else "row")
+        self.data: dict[str, list[NDArray[np.float64]]] = {k: [] for k in _FIELDS}
+        self.kept = 0
+
+    def add(self, chunk: Any) -> None:
+        """Keep every ``stride``-th row of a reduced chunk."""
+        n = len(chunk.status)
+        rows = self.next_row + np.arange(n)
+        self.next_row += n
+        sel = rows % self.stride == 0
+        out = chunk.out
+        x = chunk.time if chunk.time is not None else rows.astype(np.float64)
+        lu, su, tu = self.units["length"], self.units["speed"], self.units["temperature"]
+        cols = {
+            "x": x, "hp": u.from_si(out.pressure_altitude, lu),
+            "hbaro": (u.from_si(out.baro_altitude, lu) if out.baro_altitude is not None
+                      else np.full(n, np.nan)),
+            "cas": u.from_si(out.cas, su), "eas": u.from_si(out.eas, su),
+            "tas": u.from_si(out.tas, su), "mach": out.mach,
+            "sat": u.from_si(out.sat, tu), "tat": u.from_si(chunk.tat, tu),
+            "status": chunk.status.astype(np.float64),
+        }
+        for k in _FIELDS:
+            self.data[k].append(np.asarray(cols[k], dtype=np.float64)[sel])
+        self.kept += int(sel.sum())
+        if self.kept > self.limit:
+            for k in _FIELDS:
+                self.data[k] = [np.concatenate(self.data[k])[::2]]
+            self.kept = len(self.data["x"][0])
+            self.stride *= 2
+
+    def arrays(self) -> dict[str, NDArray[np.float64]]:
+        """The kept samples, one array per field."""
+        return {k: (np.concatenate(v) if v else np.empty(0)) for k, v in self.data.items()}
+
+
+def draw(collector: Collector, path: str, title: str, profile: str) -> None:
+    """Draw altitude, airspeeds, Mach and temperatures against time into ``path``."""
+    import matplotlib
+
+    matplotlib.use("Agg")
+    import matplotlib.pyplot as plt
+
+    d = collector.arrays()
+    x = d["x"]
+    lu, su, tu = (collector.units[k] for k in ("length", "speed", "temperature"))
+    fig, axes = plt.subplots(4, 1, sharex=True, figsize=(10.5, 9.5))
+    style = {"linewidth": 0.9}
+    ax = axes[0]
+    ax.plot(x, d["hp"], color="black", label="pressure altitude", **style)
+    if np.isfinite(d["hbaro"]).any():
+        ax.plot(x, d["hbaro"], color="tab:blue", linestyle="--", label="baro-corrected altitude",
+                **style)
+    ax.set_ylabel(f"altitude [{lu}]")
+    ax = axes[1]
+    ax.plot(x, d["cas"], color="black", label="CAS", **style)
+    ax.plot(x, d["eas"], color="tab:green", label="EAS", **style)
+    ax.plot(x, d["tas"], color="tab:red", label="TAS", **style)
+    ax.set_ylabel(f"airspeed [{su}]")
+    ax = axes[2]
+    ax.plot(x, d["mach"], color="black", label="Mach", **style)
+    ax.axhline(1.0, color="grey", linestyle=":", linewidth=0.8)
+    ax.set_ylabel("Mach number")
+    ax = axes[3]
+    bad = (d["status"] != Status.OK) & (d["status"] != Status.IMPACT_PRESSURE_ZEROED)
+    ax.plot(x, np.where(bad, np.nan, d["tat"]), color="tab:red", label="TAT (measured)",
+            **style)
+    ax.plot(x, d["sat"], color="black", label="SAT", **style)
+    ax.set_ylabel(f"temperature [{tu}]")
+    ax.set_xlabel(collector.x_label)
+    if bad.any():
+        for a in axes:
+            a.vlines(x[bad], 0.0, 1.0, transform=a.get_xaxis_transform(),
+                     color="tab:orange", linewidth=0.6, alpha=0.6)
+        axes[0].plot([], [], color="tab:orange", label=f"rejected rows ({int(bad.sum())})")
+    for a in axes:
+        a.grid(True, linewidth=0.4, color="0.8")
+        a.legend(loc="upper left", bbox_to_anchor=(1.005, 1.0), fontsize=8, frameon=False)
+    note = f"profile {profile}"
+    if collector.stride > 1:
+        note += f"; every {collector.stride}th row shown"
+    axes[0].set_title(f"{title}  ({note})", fontsize=10, loc="left")
+    fig.text(0.01, 0.005, "airdata: an engineering aid, not certified flight software",
+             fontsize=7, color="0.4")
+    fig.tight_layout(rect=(0, 0.015, 1, 1))
+    fig.savefig(path, dpi=110)
+    plt.close(fig)

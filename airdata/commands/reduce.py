@@ -1,0 +1,522 @@
+"""``airdata reduce``: run the air-data chain over a recorded series in a CSV file.
+
+Input
+-----
+A CSV file whose first line is the header.  Columns holding quantities carry their unit
+in square brackets after the name::
+
+    time[s],ps[hPa],pt[hPa],tat[degC],phase
+    0.0,1000.52,1000.49,19.83,ground
+
+Required columns: ``ps`` (static pressure), ``pt`` (total pressure), ``tat`` (total air
+temperature).  Optional: ``setting`` (altimeter setting, per row) and ``time`` (the
+abscissa of ``--plot``; any unit, not converted).  ``--col ROLE=HEADER`` picks a
+differently named column, ``--unit ROLE=UNIT`` gives the unit of a column whose header
+has none.  Units: pressure Pa, hPa, mbar, kPa, inHg; temperature K, degC, degF.
+
+Output
+------
+Every input column unchanged and in place, then the outputs, each named with its unit
+(``hp[ft]``, ``qc[hPa]``, ``mach[1]``, ``cas[kt]``, ``eas[kt]``, ``tas[kt]``,
+``sat[degC]``, ``rho[kg/m3]``, ``hd[ft]``, ``q[hPa]``, and ``hbaro[ft]`` with an
+altimeter setting), then ``status`` (a name of :class:`airdata.Status`) and ``note``
+(why a row is not ``OK``).  Numbers are written in full binary64 precision unless
+``--digits`` says otherwise.
+
+Bad rows
+--------
+A row with an empty field, text in a number field, a value outside the model or a
+different number of fields than the header stays in its place: its outputs are empty
+(NaN), its status says why (``INVALID_INPUT``, ``OUT_OF_RANGE``) and its note names the
+field.  Nothing is dropped, nothing is clamped.  ``IMPACT_PRESSURE_ZEROED`` rows (a
+negative impact pressure within the noise band, read as zero) have valid outputs.
+
+Memory and progress
+-------------------
+Input and output are streamed in chunks of ``--chunk`` rows (csv module + numpy per
+chunk), so memory stays flat whatever the file size.  A progress bar is drawn on
+standard error when it is a terminal.  ``--plot`` keeps at most ``PLOT_POINTS`` samples
+(every k-th row of a long file).
+
+Exit status: 0 done (also when some rows are bad, unless ``--fail-on-bad``), 1 a data
+problem (unreadable file, missing column, wrong unit in the header), 2 a usage error.
+"""
+
+from __future__ import annotations
+
+import argparse
+import csv
+import json
+import os
+import sys
+import time
+from collections.abc import Callable
+from dataclasses import dataclass, field
+from operator import itemgetter
+from typing import IO
+
+import numpy as np
+from numpy.typing import NDArray
+
+from .. import units as u
+from ..chain import NOISE_BAND, AirData, air_data
+from ..profiles import get_profile
+from ..status import DomainError, Status
+from .csvio import ChunkReader, Column, HeaderError, parse_numbers
+from .progress import Progress
+from .quantities import (
+    add_output_units,
+    add_profile,
+    allow_negative_values,
+    fail,
+    output_units,
+    quantity_type,
+)
+
+__all__ = ["register", "run", "OUTPUTS", "PLOT_POINTS", "Summary"]
+
+COMMAND = "reduce"
+
+#: (key of AirData, column name, dimension) of every output, in output order.
+OUTPUTS: tuple[tuple[str, str, str], ...] = (
+    ("pressure_altitude", "hp", "length"),
+    ("baro_altitude", "hbaro", "length"),
+    ("impact_pressure", "qc", "pressure"),
+    ("mach", "mach", "dimensionless"),
+    ("cas", "cas", "speed"),
+    ("eas", "eas", "speed"),
+    ("tas", "tas", "speed"),
+    ("sat", "sat", "temperature"),
+    ("density", "rho", "density"),
+    ("density_altitude", "hd", "length"),
+    ("dynamic_pressure", "q", "pressure"),
+)
+
+#: Input roles: (role, dimension or None for any unit, required).
+ROLES: tuple[tuple[str, str | None, bool], ...] = (
+    ("ps", "pressure", True),
+    ("pt", "pressure", True),
+    ("tat", "temperature", True),
+    ("setting", "pressure", False),
+    ("time", None, False),
+)
+
+#: Most samples kept for ``--plot``.
+PLOT_POINTS = 50000
+
+_STATUS_NAMES = {int(s): s.name for s in Status}
+_ZEROED_NOTE = "negative qc within the noise band read as zero"
+
+DESCRIPTION = """\
+Run the air-data chain over a recorded series (CSV) and write every input column
+unchanged plus the outputs, each column named with its unit.
+
+Header convention: a quantity's column names its unit in brackets, e.g.
+  time[s],ps[hPa],pt[hPa],tat[degC],phase
+Needed: ps (static pressure), pt (total pressure), tat (total air temperature).
+Optional: setting (altimeter setting per row), time (x axis of --plot).
+Pressure units: Pa, hPa, mbar, kPa, inHg.  Temperature units: K, degC, degF.
+Other columns pass through unchanged.
+
+Outputs: hp (pressure altitude), hbaro (baro-corrected altitude, with a setting),
+qc (impact pressure), mach, cas, eas, tas, sat, rho (density), hd (density altitude),
+q (dynamic pressure), then status (OK, INVALID_INPUT, OUT_OF_RANGE,
+IMPACT_PRESSURE_ZEROED) and note.  A bad row keeps its place with empty outputs and
+a status saying why; nothing is dropped or clamped.
+
+The file is streamed in chunks: memory stays flat for any size.  A progress bar shows
+on standard error when it is a terminal.  Use "-" for standard input or output.
+
+Exit status: 0 done (also with bad rows unless --fail-on-bad), 1 data error
+(unreadable file, missing column, bad unit in the header), 2 usage error.
+"""
+
+
+@dataclass
+class Summary:
+    """What a run did.
+
+    Attributes
+    ----------
+    rows : int
+        Data rows written (equal to the data rows read).
+    counts : dict of str to int
+        Rows per status name.
+    seconds : float
+        Wall time of the run.
+    columns : list of str
+        The output header.
+    """
+
+    rows: int = 0
+    counts: dict[str, int] = field(default_factory=lambda: {s.name: 0 for s in Status})
+    seconds: float = 0.0
+    columns: list[str] = field(default_factory=list)
+
+    @property
+    def bad(self) -> int:
+        """Rows whose outputs are NaN."""
+        return sum(n for name, n in self.counts.items()
+                   if name not in ("OK", "IMPACT_PRESSURE_ZEROED"))
+
+
+# --------------------------------------------------------------------------- options
+
+def _assignment(text: str) -> tuple[str, str]:
+    role, sep, value = text.partition("=")
+    roles = [r for r, _, _ in ROLES]
+    if not sep or role.strip() not in roles or not value.strip():
+        raise argparse.ArgumentTypeError(
+            f"{text!r}: write ROLE=VALUE with ROLE one of {', '.join(roles)}")
+    return role.strip(), value.strip()
+
+
+def register(subparsers: argparse._SubParsersAction) -> None:
+    """Add the ``reduce`` sub-command."""
+    from ..cli import CAUTION
+
+    p = subparsers.add_parser(
+        COMMAND, help="run the air-data chain over a recorded CSV series",
+        description=DESCRIPTION, epilog=CAUTION,
+        formatter_class=argparse.RawDescriptionHelpFormatter)
+    allow_negative_values(p)
+    p.add_argument("input", metavar="IN.csv", help='recorded series ("-": standard input)')
+    p.add_argument("-o", "--output", metavar="OUT.csv", required=True,
+                   help='reduced series ("-": standard output)')
+    add_profile(p)
+    p.add_argument("--setting", type=quantity_type("pressure"), metavar="P",
+                   help="altimeter setting for every row, e.g. 1013.2hPa or 29.92inHg "
+                        "(adds hbaro; not with a setting column)")
+    p.add_argument("--recovery", type=float, default=1.0, metavar="R",
+                   help="recovery factor of the TAT probe, in [0, 1] (default 1)")
+    p.add_argument("--noise-band", type=quantity_type("pressure"), metavar="P",
+                   default=None,
+                   help=f"negative impact pressure read as zero (default {NOISE_BAND:g}Pa)")
+    p.add_argument("--col", type=_assignment, action="append", default=[],
+                   metavar="ROLE=HEADER",
+                   help="take ROLE (ps, pt, tat, setting, time) from the column named HEADER")
+    p.add_argument("--unit", type=_assignment, action="append", default=[],
+                   metavar="ROLE=UNIT", help="unit of a ROLE column whose header has none")
+    p.add_argument("--only", metavar="LIST",
+                   help="comma-separated outputs to write, e.g. hp,cas,mach (default: all)")
+    p.add_argument("--prefix", default="", metavar="TEXT",
+                   help="prefix of the output column names (to avoid clashes)")
+    p.add_argument("--digits", type=int, default=None, metavar="N",
+                   help="significant digits of the outputs (default: full precision)")
+    p.add_argument("--chunk", type=int, default=20000, metavar="ROWS",
+                   help="rows per chunk (default 20000)")
+    p.add_argument("--delimiter", default=",", metavar="CHAR",
+                   help="field separator (default ,)")
+    p.add_argument("--plot", metavar="FILE",
+                   help="draw the main outputs against time into FILE (.png, .pdf, .svg); "
+                        "needs matplotlib")
+    p.add_argument("--fail-on-bad", action="store_true",
+                   help="exit with status 1 if any row is INVALID_INPUT or OUT_OF_RANGE")
+    p.add_argument("--json", action="store_true",
+                   help="print a summary as JSON on standard output")
+    p.add_argument("-q", "--quiet", action="store_true", help="no summary on standard error")
+    add_output_units(p)
+    p.set_defaults(func=run, _parser=p)
+
+
+# --------------------------------------------------------------------------- planning
+
+@dataclass
+class _Plan:
+    roles: dict[str, Column]
+    role_units: dict[str, str]
+    outputs: list[tuple[str, str, str]]  # (key, header, unit)
+    width: int
+
+
+def _plan(reader: ChunkReader, args: argparse.Namespace) -> _Plan:
+    wanted = dict(args.col)
+    given_units = dict(args.unit)
+    by_name: dict[str, list[Column]] = {}
+    for c in reader.columns:
+        by_name.setdefault(c.name, []).append(c)
+    found = ", ".join(c.header for c in reader.columns)
+    roles: dict[str, Column] = {}
+    role_units: dict[str, str] = {}
+    for role, dim, required in ROLES:
+        name = wanted.get(role, role)
+        matches = by_name.get(name, [])
+        if not matches and role in wanted:
+            # --col may name the full header cell, unit included
+            matches = [c for c in reader.columns if c.header.strip() == name]
+        if not matches:
+            if required:
+                raise HeaderError(f"no column {name!r} ({_role_words(role)}) in the header; "
+                                  f"columns found: {found}")
+            continue
+        if len(matches) > 1:
+            raise HeaderError(f"{len(matches)} columns named {name!r}: "
+                              + ", ".join(c.header for c in matches))
+        col = matches[0]
+        unit = given_units.get(role) or col.unit
+        if col.unit and role in given_units and given_units[role] != col.unit:
+            raise HeaderError(f"column {col.header!r} says unit {col.unit!r} but --unit gives "
+                              f"{given_units[role]!r}")
+        if dim is not None:
+            if unit is None:
+                raise HeaderError(
+                    f"column {col.header!r} carries no unit: name it like {name}[hPa] "
+                    f"or give --unit {role}=UNIT; units of {dim}: "
+                    f"{', '.join(u.units_of(dim))}")
+            if unit not in u.UNITS or u.dimension(unit) != dim:
+                raise HeaderError(
+                    f"column {col.header!r}: unit {unit!r} is not a {dim} unit; units of "
+                    f"{dim}: {', '.join(u.units_of(dim))}")
+        roles[role] = col
+        role_units[role] = unit or ""
+    if "setting" in roles and args.setting is not None:
+        raise HeaderError(f"both a setting column ({roles['setting'].header!r}) and --setting "
+                          "given: use one")
+    with_setting = "setting" in roles or args.setting is not None
+    ou = output_units(args)
+    selected = [o for o in OUTPUTS if o[0] != "baro_altitude" or with_setting]
+    if args.only:
+        names = [s.strip() for s in args.only.split(",") if s.strip()]
+        known = {o[1]: o for o in selected}
+        unknown = [n for n in names if n not in known]
+        if unknown:
+            raise _UsageError(f"--only: unknown output(s) {', '.join(unknown)}; outputs: "
+                         f"{', '.join(known)}")
+        selected = [known[n] for n in names]
+    outputs = [(key, f"{args.prefix}{name}[{ou[dim]}]", ou[dim]) for key, name, dim in selected]
+    clash = {h for _, h, _ in outputs} & {c.header for c in reader.columns}
+    for extra in ("status", "note"):
+        if f"{args.prefix}{extra}" in {c.header for c in reader.columns}:
+            clash.add(f"{args.prefix}{extra}")
+    if clash:
+        raise HeaderError(f"output column(s) {', '.join(sorted(clash))} already in the input; "
+                          "give --prefix, e.g. --prefix ref_")
+    return _Plan(roles, role_units, outputs, len(reader.header))
+
+
+def _role_words(role: str) -> str:
+    return {"ps": "static pressure", "pt": "total pressure", "tat": "total air temperature",
+            "setting": "altimeter setting", "time": "time"}[role]
+
+
+class _UsageError(Exception):
+    """A usage error found after parsing (exit status 2)."""
+
+
+# --------------------------------------------------------------------------- chunks
+
+@dataclass
+class _Chunk:
+    """One chunk reduced: outputs in output units, status, notes, and the inputs."""
+
+    values: NDArray[np.float64]  # (n, k) in output units
+    status: NDArray[np.int8]
+    notes: list[str]
+    time: NDArray[np.float64] | None
+    tat: NDArray[np.float64]  # SI
+    out: AirData
+
+
+def _column(rows: list[list[str]], index: int, ragged: bool) -> list[str]:
+    if not ragged:
+        return list(map(itemgetter(index), rows))
+    return [r[index] if index < len(r) else "" for r in rows]
+
+
+def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace) -> _Chunk:
+    """Reduce one chunk of rows (lists of field strings)."""
+    n = len(rows)
+    width = plan.width
+    lengths = np.fromiter(map(len, rows), dtype=np.int64, count=n)
+    ragged_mask = lengths != width
+    ragged = bool(ragged_mask.any())
+    notes = [""] * n
+    si: dict[str, NDArray[np.float64]] = {}
+    unreadable = np.zeros(n, dtype=bool)
+    time_values = None
+    for role, col in plan.roles.items():
+        fields = _column(rows, col.index, ragged)
+        values, bad = parse_numbers(fields)
+        if role == "time":
+            time_values = values
+            continue
+        unreadable |= bad
+        for i in np.flatnonzero(bad):
+            text = fields[i]
+            what = "empty" if not text.strip() else f"not a number ({text!r})"
+            notes[i] = _join(notes[i], f"{col.header}: {what}")
+        si[role] = np.asarray(u.to_si(values, plan.role_units[role]), dtype=np.float64)
+    for i in np.flatnonzero(ragged_mask):
+        r = rows[i]
+        msg = f"row has {len(r)} fields, the header {width}"
+        if len(r) > width:
+            msg += "; extra fields: " + ", ".join(repr(x) for x in r[width:])
+        notes[i] = _join(notes[i], msg)
+    setting = si.get("setting")
+    if setting is None and args.setting is not None:
+        setting = np.full(n, args.setting.si)
+    noise = NOISE_BAND if args.noise_band is None else args.noise_band.si
+    ps, pt, tat = si["ps"], si["pt"], si["tat"]
+    if ragged:  # a malformed row is not trusted: NaN inputs make it INVALID_INPUT
+        ps = np.where(ragged_mask, np.nan, ps)
+    out = air_data(ps, pt, tat, args.recovery, setting, noise_band=noise,
+                   profile=args.profile, strict=False)
+    status = np.asarray(out.status, dtype=np.int8)
+    for i in np.flatnonzero(status != Status.OK):
+        if notes[i]:
+            continue
+        if status[i] == Status.IMPACT_PRESSURE_ZEROED:
+            notes[i] = _ZEROED_NOTE
+        else:
+            notes[i] = _domain_note(ps[i], pt[i], tat[i], args.recovery,
+                                    None if setting is None else setting[i], noise, args.profile)
+    cols = []
+    for key, _, unit in plan.outputs:
+        cols.append(np.asarray(u.from_si(np.asarray(getattr(out, key)), unit)))
+    values = np.column_stack(cols) if cols else np.empty((n, 0))
+    return _Chunk(values, status, notes, time_values, tat, out)
+
+
+def _join(a: str, b: str) -> str:
+    return f"{a}; {b}" if a else b
+
+
+def _domain_note(ps: float, pt: float, tat: float, recovery: float, setting: float | None,
+                 noise: float, profile: str) -> str:
+    """The library's own message for one bad row (values in SI units)."""
+    try:
+        air_data(float(ps), float(pt), float(tat), recovery, setting, noise_band=noise,
+                 profile=profile, strict=True)
+    except DomainError as exc:
+        return f"{exc} (SI units)"
+    return "rejected by the air-data chain"  # pragma: no cover - status and strict agree
+
+
+def _formatter(digits: int | None) -> Callable[[list[float]], list[object]]:
+    if digits is None:
+        return lambda vals: ["" if v != v else v for v in vals]
+    fmt = f"{{:.{digits}g}}"
+    return lambda vals: ["" if v != v else fmt.format(v) for v in vals]
+
+
+# --------------------------------------------------------------------------- the run
+
+def run(args: argparse.Namespace) -> int:
+    """Run ``airdata reduce``; returns the exit status."""
+    parser: argparse.ArgumentParser = args._parser
+    if args.chunk < 1:
+        parser.error("--chunk must be at least 1")
+    if args.digits is not None and not 1 <= args.digits <= 17:
+        parser.error("--digits must be in [1, 17]")
+    if len(args.delimiter) != 1:
+        parser.error("--delimiter must be one character")
+    if args.json and args.output == "-":
+        parser.error("--json and -o - both write to standard output: choose one")
+    if not 0.0 <= args.recovery <= 1.0:
+        parser.error(f"--recovery {args.recovery!r} is outside [0, 1]")
+    if args.output != "-" and args.input != "-" and os.path.exists(args.output) \
+            and os.path.samefile(args.input, args.output):
+        parser.error("the output would overwrite the input")
+    if args.plot:
+        from .plotting import PlotUnavailableError, check_available
+        try:
+            check_available()
+        except PlotUnavailableError as exc:
+            return fail(COMMAND, str(exc), 1)
+    get_profile(args.profile)
+    try:
+        summary = _run(args)
+    except _UsageError as exc:
+        parser.error(str(exc))
+    except (HeaderError, csv.Error, UnicodeDecodeError) as exc:
+        return fail(COMMAND, str(exc), 1)
+    except FileNotFoundError as exc:
+        return fail(COMMAND, f"{exc.filename}: no such file", 1)
+    except DomainError as exc:
+        return fail(COMMAND, str(exc), 1)
+    if args.json:
+        json.dump({"input": args.input, "output": args.output, "rows": summary.rows,
+                   "status_counts": summary.counts, "columns": summary.columns,
+                   "seconds": round(summary.seconds, 3), "profile": args.profile,
+                   "plot": args.plot}, sys.stdout, indent=2)
+        sys.stdout.write("\n")
+    if not args.quiet:
+        rate = summary.rows / summary.seconds if summary.seconds > 0 else float("inf")
+        counts = ", ".join(f"{n} {name}" for name, n in summary.counts.items() if n)
+        print(f"airdata reduce: {summary.rows} rows ({counts or 'none'}) in "
+              f"{summary.seconds:.2f} s, {rate:,.0f} rows/s -> {args.output}", file=sys.stderr)
+    if args.fail_on_bad and summary.bad:
+        return fail(COMMAND, f"{summary.bad} row(s) could not be reduced", 1)
+    return 0
+
+
+def _open_output(path: str) -> tuple[IO[str], str | None]:
+    if path == "-":
+        return sys.stdout, None
+    tmp = f"{path}.partial"
+    return open(tmp, "w", encoding="utf-8", newline=""), tmp
+
+
+def _run(args: argparse.Namespace) -> Summary:
+    start = time.monotonic()
+    reader = ChunkReader(args.input, args.chunk, args.delimiter)
+    try:
+        plan = _plan(reader, args)
+        header = list(reader.header) + [h for _, h, _ in plan.outputs] \
+            + [f"{args.prefix}status", f"{args.prefix}note"]
+        summary = Summary(columns=header)
+        collector = None
+        if args.plot:
+            from .plotting import Collector
+            collector = Collector(PLOT_POINTS, plan, output_units(args))
+        fmt = _formatter(args.digits)
+        progress = Progress(reader.size)
+        stream, tmp = _open_output(args.output)
+        try:
+            writer = csv.writer(stream, lineterminator="\n", delimiter=args.delimiter)
+            writer.writerow(header)
+            width = plan.width
+            for rows in reader.chunks():
+                ch = reduce_chunk(rows, plan, args)
+                vals = ch.values.tolist()
+                nan_rows = np.flatnonzero(np.isnan(ch.values).any(axis=1)) \
+                    if ch.values.size else []
+                for i in nan_rows:
+                    vals[i] = fmt(vals[i])
+                if args.digits is not None:
+                    for i in range(len(vals)):
+                        vals[i] = fmt(vals[i])
+                names = [_STATUS_NAMES[s] for s in ch.status.tolist()]
+                out_rows = []
+                for i, row in enumerate(rows):
+                    if len(row) != width:
+                        row = (row + [""] * width)[:width]
+                    out_rows.append(row + vals[i] + [names[i], ch.notes[i]])
+                writer.writerows(out_rows)
+                for s, n in zip(*np.unique(ch.status, return_counts=True), strict=True):
+                    summary.counts[_STATUS_NAMES[int(s)]] += int(n)
+                summary.rows += len(rows)
+                if collector is not None:
+                    collector.add(ch)
+                progress.update(reader.position(), summary.rows)
+            progress.update(reader.position(), summary.rows, force=True)
+        except BaseException:
+            progress.close()
+            if tmp is not None:
+                stream.close()
+                os.unlink(tmp)
+            raise
+        progress.close()
+        if tmp is not None:
+            stream.close()
+            os.replace(tmp, args.output)
+        else:
+            stream.flush()
+        if collector is not None:
+            from .plotting import draw
+            draw(collector, args.plot, title=f"airdata reduce {os.path.basename(args.input)}",
+                 profile=args.profile)
+    finally:
+        reader.close()
+    summary.seconds = time.monotonic() - start
+    return summary
