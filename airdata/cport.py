@@ -1,0 +1,457 @@
+"""The bundled C port, callable from Python with the reference's API.
+
+Every function here has the name, arguments, defaults and error behaviour of the
+reference function of the same name in :mod:`airdata` (``strict``, :class:`DomainError`
+naming the argument, value, index and valid range; records for :func:`atmosphere` and
+:func:`air_data`), plus ``precision``: ``"double"`` runs the binary64 build
+(``airdata._cport64``), ``"single"`` the binary32 build (``airdata._cport32``, inputs
+rounded to binary32 first).
+
+Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
+floats.  Array results have the dtype of the precision (float64 or float32).  The
+whole array is evaluated by one call of the port's batch entry point
+(``bindings/c/include/airdata_batch.h``), not one call per element.
+
+The port is compiled with the ICAO profile only: any other ``profile`` raises
+:class:`ValueError`.
+
+Error messages: the argument checks are done by the port (its ``ad_check_n``); for a
+failing derived quantity (for example the Mach number a CAS reaches at a given
+pressure) the port decides the status and the reference supplies the wording of the
+message, evaluated on the offending element.
+
+An engineering and verification aid, not certified flight software.
+"""
+
+from __future__ import annotations
+
+import importlib
+from collections.abc import Callable
+from functools import cache
+from types import ModuleType
+from typing import Any
+
+import numpy as np
+from numpy.typing import NDArray
+
+from . import _domains as dom
+from . import altimetry as _alt
+from . import chain as _chain
+from . import pitot as _pit
+from . import speeds as _spd
+from . import temperature as _tmp
+from ._inputs import ArrayLike, Domain, FloatOrArray
+from .atmosphere import Atmosphere
+from .atmosphere import atmosphere as _ref_atmosphere
+from .atmosphere import geometric_altitude as _ref_geometric
+from .atmosphere import geopotential_altitude as _ref_geopotential
+from .chain import AirData
+from .profiles import ICAO, Profile, get_profile
+from .status import DomainError, Status
+
+__all__ = [
+    "PRECISIONS", "atmosphere", "geopotential_altitude", "geometric_altitude",
+    "pressure_altitude", "pressure_at_altitude", "baro_corrected_altitude",
+    "altimeter_setting", "density_altitude", "impact_pressure_from_mach",
+    "mach_from_impact_pressure", "impact_pressure_from_cas", "cas_from_impact_pressure",
+    "cas_from_mach", "mach_from_cas", "eas_from_mach", "mach_from_eas", "tas_from_mach",
+    "mach_from_tas", "dynamic_pressure", "sat_from_tat", "tat_from_sat", "air_data",
+]
+
+#: Precision name -> (extension module, numpy dtype of ``ad_real``).
+PRECISIONS: dict[str, tuple[str, type[np.floating[Any]]]] = {
+    "double": ("airdata._cport64", np.float64),
+    "single": ("airdata._cport32", np.float32),
+}
+
+# Argument domain name -> (port's ad_domain_id, the reference's Domain).
+_DOMAINS: dict[str, tuple[int, Callable[[], Domain]]] = {
+    "mach": (0, lambda: dom.MACH),
+    "speed": (1, lambda: dom.SPEED),
+    "temperature": (2, lambda: dom.TEMPERATURE),
+    "delta_t": (3, lambda: dom.DELTA_T),
+    "recovery": (4, lambda: dom.RECOVERY),
+    "impact_pressure": (5, lambda: dom.IMPACT_PRESSURE),
+    "elevation": (6, lambda: dom.ELEVATION),
+    "altitude": (7, lambda: dom.altitude(ICAO)),
+    "geometric": (8, lambda: dom.geometric(ICAO)),
+    "pressure": (9, lambda: dom.pressure(ICAO)),
+    "setting": (10, lambda: dom.setting(ICAO)),
+    "total_pressure": (11, lambda: _chain._TOTAL_PRESSURE),
+}
+
+_ERRORS = (int(Status.INVALID_INPUT), int(Status.OUT_OF_RANGE), int(Status.NO_CONVERGENCE))
+
+
+@cache
+def _module(precision: str) -> ModuleType:
+    """The compiled extension module of ``precision``."""
+    if precision not in PRECISIONS:
+        raise ValueError(f"precision = {precision!r}: choose 'double' or 'single'")
+    return importlib.import_module(PRECISIONS[precision][0])
+
+
+def _check_profile(profile: Profile | str | None) -> Profile:
+    prof = get_profile(profile)
+    if prof is not ICAO:
+        raise ValueError(f"profile {prof.name!r}: the bundled C port is compiled with the "
+                         "'icao' profile only")
+    return prof
+
+
+class _Batch:
+    """Broadcast inputs of one call, converted to contiguous arrays of ``ad_real``."""
+
+    def __init__(self, precision: str, named: dict[str, tuple[ArrayLike, str]]) -> None:
+        self.mod = _module(precision)
+        self.dtype = PRECISIONS[precision][1]
+        self.names = list(named)
+        self.domains = [d for _, d in named.values()]
+        raw = [np.asarray(v, dtype=np.float64) for v, _ in named.values()]
+        self.scalar = all(r.ndim == 0 for r in raw)
+        self.wide = np.broadcast_arrays(*[np.atleast_1d(r) for r in raw])
+        self.shape = self.wide[0].shape
+        with np.errstate(over="ignore"):
+            self.flat = [np.ascontiguousarray(a, dtype=self.dtype).reshape(-1)
+                         for a in self.wide]
+        self.n = self.flat[0].size
+        self.status = np.zeros(self.n, dtype=np.uint8)
+
+    def ptr(self, a: NDArray[Any] | None, ctype: str = "ad_real[]") -> Any:
+        """A cffi pointer to the data of ``a`` (NULL for None)."""
+        if a is None:
+            return self.mod.ffi.NULL
+        return self.mod.ffi.from_buffer(ctype, a)
+
+    def inputs(self) -> list[Any]:
+        """Pointers to every input array, in argument order."""
+        return [self.ptr(a) for a in self.flat]
+
+    def done(self, bad: int) -> int:
+        """Check the batch call's return value."""
+        if bad == int(self.mod.lib.AD_BATCH_NULL):
+            raise RuntimeError("C port batch call refused a NULL pointer")
+        return bad
+
+    def index(self, i: int) -> tuple[int, ...] | None:
+        """Index of flat element ``i`` in the broadcast shape (None for scalars)."""
+        if self.scalar:
+            return None
+        return tuple(int(j) for j in np.unravel_index(i, self.shape))
+
+    def raise_first(self, reference: Callable[..., Any]) -> None:
+        """Raise the DomainError the reference raises: arguments in order, then derived."""
+        for k, (name, dname) in enumerate(zip(self.names, self.domains, strict=True)):
+            did, domain = _DOMAINS[dname]
+            st = np.zeros(self.n, dtype=np.uint8)
+            self.done(self.mod.lib.ad_check_n(did, self.ptr(self.flat[k]),
+                                              self.ptr(st, "unsigned char[]"),
+                                              self.n))
+            bad = np.flatnonzero(st)
+            if bad.size:
+                i = int(bad[0])
+                raise DomainError(name, float(self.wide[k].flat[i]), self.index(i),
+                                  domain().describe(), Status(int(st[i])))
+        i = int(np.flatnonzero(np.isin(self.status, _ERRORS))[0])
+        status = Status(int(self.status[i]))
+        try:
+            reference(*[float(a.flat[i]) for a in self.wide])
+        except DomainError as e:
+            raise DomainError(e.argument, e.value, self.index(i), e.valid, status) from None
+        raise DomainError("derived quantity", float("nan"), self.index(i),
+                          "that of the reference function (binary32 rounding crossed a "
+                          "range end)", status)
+
+    def finish(self, y: NDArray[Any]) -> FloatOrArray:
+        """A Python float for scalar input, else an array of the broadcast shape."""
+        if self.scalar:
+            return float(y.reshape(-1)[0])
+        return y.reshape(self.shape)
+
+
+def _simple(cname: str, reference: Callable[..., Any], strict: bool, precision: str,
+            named: dict[str, tuple[ArrayLike, str]]) -> FloatOrArray:
+    """Evaluate a one-output function through its batch entry point."""
+    b = _Batch(precision, named)
+    out = np.empty(b.n, dtype=b.dtype)
+    if b.n:
+        fn = getattr(b.mod.lib, f"ad_{cname}_n")
+        bad = b.done(fn(*b.inputs(), b.ptr(out), b.ptr(b.status, "unsigned char[]"), b.n))
+        if bad and strict:
+            b.raise_first(reference)
+    return b.finish(out)
+
+
+def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | None = None,
+               strict: bool = True, precision: str = "double") -> Atmosphere:
+    """Port of :func:`airdata.atmosphere` (ATM-2 .. ATM-6).
+
+    Parameters
+    ----------
+    h : float or array_like
+        Geopotential altitude, m, in [-5000, 84852].
+    dT : float or array_like, optional
+        Temperature deviation, K, in [-100, 100].
+    profile : Profile or str, optional
+        Must be the ICAO profile (the port's compiled constants).
+    strict : bool, optional
+        Raise on the first bad element (default) or give NaN for just the bad elements.
+    precision : {"double", "single"}, optional
+        Which build of the port to run.
+
+    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
+    floats.
+
+    Returns
+    -------
+    Atmosphere
+        The same record as the reference.
+
+    Raises
+    ------
+    DomainError
+        As the reference.
+    """
+    prof = _check_profile(profile)
+    b = _Batch(precision, {"h": (h, "altitude"), "dT": (dT, "delta_t")})
+    out = np.empty((b.n, 6), dtype=b.dtype)
+    if b.n:
+        bad = b.done(b.mod.lib.ad_atmosphere_n(*b.inputs(), b.ptr(out, "ad_atmosphere_t[]"),
+                                               b.ptr(b.status, "unsigned char[]"), b.n))
+        if bad and strict:
+            b.raise_first(lambda *a: _ref_atmosphere(*a, profile=prof))
+    cols = [b.finish(np.ascontiguousarray(out[:, j])) for j in range(6)]
+    return Atmosphere(*cols, profile=prof.name)
+
+
+def geopotential_altitude(z: ArrayLike, *, profile: Profile | str | None = None,
+                          strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.geopotential_altitude` (ATM-7); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("geopotential_altitude", lambda *a: _ref_geopotential(*a, profile=prof),
+                   strict, precision, {"z": (z, "geometric")})
+
+
+def geometric_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
+                       strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.geometric_altitude` (ATM-8); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("geometric_altitude", lambda *a: _ref_geometric(*a, profile=prof),
+                   strict, precision, {"h": (h, "altitude")})
+
+
+def pressure_altitude(ps: ArrayLike, *, profile: Profile | str | None = None,
+                      strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.pressure_altitude` (ALT-1); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("pressure_altitude", lambda *a: _alt.pressure_altitude(*a, profile=prof),
+                   strict, precision, {"ps": (ps, "pressure")})
+
+
+def pressure_at_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
+                         strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.pressure_at_altitude` (ATM-3); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("pressure_at_altitude",
+                   lambda *a: _alt.pressure_at_altitude(*a, profile=prof),
+                   strict, precision, {"h": (h, "altitude")})
+
+
+def baro_corrected_altitude(ps: ArrayLike, setting: ArrayLike, *,
+                            profile: Profile | str | None = None, strict: bool = True,
+                            precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.baro_corrected_altitude` (ALT-2); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("baro_corrected_altitude",
+                   lambda *a: _alt.baro_corrected_altitude(*a, profile=prof),
+                   strict, precision, {"ps": (ps, "pressure"), "setting": (setting, "setting")})
+
+
+def altimeter_setting(ps: ArrayLike, elevation: ArrayLike, *,
+                      profile: Profile | str | None = None, strict: bool = True,
+                      precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.altimeter_setting` (ALT-3); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("altimeter_setting", lambda *a: _alt.altimeter_setting(*a, profile=prof),
+                   strict, precision,
+                   {"ps": (ps, "setting"), "elevation": (elevation, "elevation")})
+
+
+def density_altitude(ps: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
+                     strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.density_altitude` (ALT-4); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("density_altitude", lambda *a: _alt.density_altitude(*a, profile=prof),
+                   strict, precision, {"ps": (ps, "pressure"), "sat": (sat, "temperature")})
+
+
+def impact_pressure_from_mach(mach: ArrayLike, ps: ArrayLike, *,
+                              profile: Profile | str | None = None, strict: bool = True,
+                              precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.impact_pressure_from_mach` (PIT-1); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("impact_pressure_from_mach",
+                   lambda *a: _pit.impact_pressure_from_mach(*a, profile=prof),
+                   strict, precision, {"mach": (mach, "mach"), "ps": (ps, "pressure")})
+
+
+def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *,
+                              profile: Profile | str | None = None, strict: bool = True,
+                              precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.mach_from_impact_pressure` (PIT-2); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("mach_from_impact_pressure",
+                   lambda *a: _pit.mach_from_impact_pressure(*a, profile=prof),
+                   strict, precision, {"qc": (qc, "impact_pressure"), "ps": (ps, "pressure")})
+
+
+def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = None,
+                             strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.impact_pressure_from_cas` (PIT-3); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("impact_pressure_from_cas",
+                   lambda *a: _pit.impact_pressure_from_cas(*a, profile=prof),
+                   strict, precision, {"cas": (cas, "speed")})
+
+
+def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = None,
+                             strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.cas_from_impact_pressure` (PIT-4); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("cas_from_impact_pressure",
+                   lambda *a: _pit.cas_from_impact_pressure(*a, profile=prof),
+                   strict, precision, {"qc": (qc, "impact_pressure")})
+
+
+def _speed2(cname: str, first: str, dfirst: str, second: str, dsecond: str,
+            a: ArrayLike, b: ArrayLike, profile: Profile | str | None, strict: bool,
+            precision: str) -> FloatOrArray:
+    prof = _check_profile(profile)
+    ref = getattr(_spd, cname)
+    return _simple(cname, lambda *x: ref(*x, profile=prof), strict, precision,
+                   {first: (a, dfirst), second: (b, dsecond)})
+
+
+def cas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.cas_from_mach` (SPD-1); ``precision`` as above."""
+    return _speed2("cas_from_mach", "mach", "mach", "ps", "pressure", mach, ps, profile,
+                   strict, precision)
+
+
+def mach_from_cas(cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.mach_from_cas` (SPD-1 inverted); ``precision`` as above."""
+    return _speed2("mach_from_cas", "cas", "speed", "ps", "pressure", cas, ps, profile,
+                   strict, precision)
+
+
+def eas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.eas_from_mach` (SPD-2); ``precision`` as above."""
+    return _speed2("eas_from_mach", "mach", "mach", "ps", "pressure", mach, ps, profile,
+                   strict, precision)
+
+
+def mach_from_eas(eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.mach_from_eas` (SPD-2 inverted); ``precision`` as above."""
+    return _speed2("mach_from_eas", "eas", "speed", "ps", "pressure", eas, ps, profile,
+                   strict, precision)
+
+
+def tas_from_mach(mach: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.tas_from_mach` (SPD-3); ``precision`` as above."""
+    return _speed2("tas_from_mach", "mach", "mach", "sat", "temperature", mach, sat, profile,
+                   strict, precision)
+
+
+def mach_from_tas(tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.mach_from_tas` (SPD-3 inverted); ``precision`` as above."""
+    return _speed2("mach_from_tas", "tas", "speed", "sat", "temperature", tas, sat, profile,
+                   strict, precision)
+
+
+def dynamic_pressure(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                     strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.dynamic_pressure` (SPD-4); ``precision`` as above."""
+    return _speed2("dynamic_pressure", "mach", "mach", "ps", "pressure", mach, ps, profile,
+                   strict, precision)
+
+
+def sat_from_tat(tat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
+                 strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.sat_from_tat` (TMP-1); ``precision`` as above."""
+    return _simple("sat_from_tat", _tmp.sat_from_tat, strict, precision,
+                   {"tat": (tat, "temperature"), "mach": (mach, "mach"),
+                    "recovery": (recovery, "recovery")})
+
+
+def tat_from_sat(sat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
+                 strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.tat_from_sat` (TMP-1); ``precision`` as above."""
+    return _simple("tat_from_sat", _tmp.tat_from_sat, strict, precision,
+                   {"sat": (sat, "temperature"), "mach": (mach, "mach"),
+                    "recovery": (recovery, "recovery")})
+
+
+_AIR_FIELDS = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", "cas", "eas",
+               "tas", "sat", "density", "density_altitude", "dynamic_pressure")
+
+
+def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike = 1.0,
+             setting: ArrayLike | None = None, *, noise_band: float = _chain.NOISE_BAND,
+             profile: Profile | str | None = None, strict: bool = True,
+             precision: str = "double") -> AirData:
+    """Port of :func:`airdata.air_data` (CHN-1).
+
+    Parameters
+    ----------
+    ps, pt, tat, recovery, setting, noise_band, profile, strict
+        As :func:`airdata.air_data` (``profile`` must be the ICAO profile).
+    precision : {"double", "single"}, optional
+        Which build of the port to run.
+
+    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
+    floats.
+
+    Returns
+    -------
+    AirData
+        The same record as the reference, ``status`` included.
+
+    Raises
+    ------
+    DomainError
+        As the reference.
+    ValueError
+        ``noise_band`` NaN or outside [0, 10000] Pa, as the reference.
+    """
+    prof = _check_profile(profile)
+    nb = _chain._NOISE
+    if not (np.isfinite(noise_band) and nb.lo <= noise_band <= nb.hi):
+        raise ValueError(f"noise_band = {noise_band!r} Pa: valid range is {nb.describe()}")
+    named: dict[str, tuple[ArrayLike, str]] = {
+        "ps": (ps, "pressure"), "pt": (pt, "total_pressure"), "tat": (tat, "temperature"),
+        "recovery": (recovery, "recovery")}
+    if setting is not None:
+        named["setting"] = (setting, "setting")
+    b = _Batch(precision, named)
+    out = np.empty((b.n, len(_AIR_FIELDS)), dtype=b.dtype)
+    if b.n:
+        ins = b.inputs()
+        use = 1 if setting is not None else 0
+        bad = b.done(b.mod.lib.ad_air_data_n(
+            ins[0], ins[1], ins[2], ins[3], ins[4] if use else b.mod.ffi.NULL, use,
+            float(noise_band), b.ptr(out, "ad_air_data_t[]"),
+            b.ptr(b.status, "unsigned char[]"), b.n))
+        if bad and strict:
+            b.raise_first(lambda *a: _chain.air_data(*a, noise_band=noise_band, profile=prof))
+    cols = {f: b.finish(np.ascontiguousarray(out[:, j])) for j, f in enumerate(_AIR_FIELDS)}
+    if setting is None:
+        cols["baro_altitude"] = None
+    status = b.status.astype(np.int8)
+    return AirData(**cols, status=int(status[0]) if b.scalar else status.reshape(b.shape),
+                   profile=prof.name)
