@@ -1,0 +1,287 @@
+/*
+ * driver.c - exercises every function of the airdata port (scalar and batch entry
+ * points) for the sanitizer and valgrind builds of tests/test_cport_build.py.
+ *
+ * Each call's status is compared with the status the contract of airdata.h requires
+ * (bad arguments, derived checks, NULL pointers), and outputs must be NaN exactly when
+ * the status is an error.  A few values are checked against facts of the trade
+ * (sea level of the standard atmosphere; CAS = EAS = TAS at sea level on a standard
+ * day: common practice, no source).  Exit status: 0 when every check passes.
+ */
+#include <math.h>
+#include <stdio.h>
+
+#include "airdata.h"
+#include "airdata_batch.h"
+
+static int failures = 0;
+
+static void expect(int ok, const char *what, int line)
+{
+    if (!ok) {
+        failures++;
+        (void)printf("FAIL line %d: %s\n", line, what);
+    }
+}
+
+#define EXPECT(cond) expect((cond) ? 1 : 0, #cond, __LINE__)
+
+/* Status st, and the output NaN exactly when st is an error. */
+static void expect_out(ad_status st, ad_status want, const ad_real *y, int line)
+{
+    const int error = (st != AD_OK) && (st != AD_IMPACT_PRESSURE_ZEROED);
+    expect(st == want, "status", line);
+    expect(error ? isnan(*y) : isfinite(*y), "output NaN exactly on error", line);
+}
+
+/* y is read inside expect_out, after the call has written it. */
+#define EXPECT_OUT(call, want, y) expect_out((call), (want), &(y), __LINE__)
+
+static void test_atmosphere(void)
+{
+    ad_atmosphere_t a;
+    ad_real y = (ad_real)0;
+    EXPECT(ad_atmosphere((ad_real)0, (ad_real)0, &a) == AD_OK);
+    EXPECT(fabs((double)a.pressure - 101325.0) < 0.1); /* sea level, ICAO Doc 7488 */
+    EXPECT(fabs((double)a.temperature - 288.15) < 1e-3);
+    EXPECT(ad_atmosphere((ad_real)NAN, (ad_real)0, &a) == AD_INVALID_INPUT);
+    EXPECT(isnan(a.temperature) && isnan(a.kinematic_viscosity));
+    EXPECT(ad_atmosphere((ad_real)90000, (ad_real)0, &a) == AD_OUT_OF_RANGE);
+    EXPECT(ad_atmosphere((ad_real)1000, (ad_real)INFINITY, &a) == AD_INVALID_INPUT);
+    EXPECT(ad_atmosphere((ad_real)1000, (ad_real)200, &a) == AD_OUT_OF_RANGE);
+    EXPECT(ad_atmosphere((ad_real)1000, (ad_real)0, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_geopotential_altitude((ad_real)10000, &y), AD_OK, y);
+    EXPECT_OUT(ad_geopotential_altitude((ad_real)-1e6, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_geopotential_altitude((ad_real)0, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_geometric_altitude((ad_real)84852, &y), AD_OK, y);
+    EXPECT_OUT(ad_geometric_altitude((ad_real)-INFINITY, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_geometric_altitude((ad_real)0, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_altimetry(void)
+{
+    ad_real y = (ad_real)0;
+    int i;
+    /* one pressure in every layer, decreasing */
+    for (i = 0; i < 8; i++) {
+        const ad_real p = (ad_real)(150000.0 * pow(0.3, (double)i));
+        EXPECT_OUT(ad_pressure_altitude(p, &y), AD_OK, y);
+    }
+    EXPECT_OUT(ad_pressure_altitude((ad_real)101325, &y), AD_OK, y);
+    EXPECT(fabs((double)y) < 1e-3); /* sea level, ICAO Doc 7488 */
+    EXPECT_OUT(ad_pressure_altitude((ad_real)0, &y), AD_INVALID_INPUT, y);
+    EXPECT_OUT(ad_pressure_altitude((ad_real)0.01, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_pressure_altitude((ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_pressure_at_altitude((ad_real)60000, &y), AD_OK, y);
+    EXPECT_OUT(ad_pressure_at_altitude((ad_real)NAN, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_pressure_at_altitude((ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_baro_corrected_altitude((ad_real)90000, (ad_real)101325, &y), AD_OK, y);
+    EXPECT_OUT(ad_baro_corrected_altitude((ad_real)90000, (ad_real)1000, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_baro_corrected_altitude((ad_real)-1, (ad_real)NAN, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_baro_corrected_altitude((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_altimeter_setting((ad_real)95000, (ad_real)500, &y), AD_OK, y);
+    EXPECT_OUT(ad_altimeter_setting((ad_real)95000, (ad_real)6000, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_altimeter_setting((ad_real)30000, (ad_real)-2000, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_altimeter_setting((ad_real)1000, (ad_real)0, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_altimeter_setting((ad_real)95000, (ad_real)NAN, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_altimeter_setting((ad_real)95000, (ad_real)0, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_density_altitude((ad_real)50000, (ad_real)250, &y), AD_OK, y);
+    EXPECT_OUT(ad_density_altitude((ad_real)30, (ad_real)250, &y), AD_OK, y);
+    EXPECT_OUT(ad_density_altitude((ad_real)0.5, (ad_real)4000, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_density_altitude((ad_real)170000, (ad_real)60, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_density_altitude((ad_real)50000, (ad_real)0, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_density_altitude((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_pitot(void)
+{
+    ad_real y = (ad_real)0;
+    EXPECT_OUT(ad_impact_pressure_from_mach((ad_real)0.5, (ad_real)50000, &y), AD_OK, y);
+    EXPECT_OUT(ad_impact_pressure_from_mach((ad_real)3, (ad_real)50000, &y), AD_OK, y);
+    EXPECT_OUT(ad_impact_pressure_from_mach((ad_real)-1, (ad_real)50000, &y),
+               AD_INVALID_INPUT, y);
+    EXPECT_OUT(ad_impact_pressure_from_mach((ad_real)11, (ad_real)-5, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_impact_pressure_from_mach((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_mach_from_impact_pressure((ad_real)1000, (ad_real)50000, &y), AD_OK, y);
+    EXPECT_OUT(ad_mach_from_impact_pressure((ad_real)500000, (ad_real)50000, &y), AD_OK, y);
+    EXPECT(fabs((double)y - 3.0) < 0.5);
+    EXPECT_OUT(ad_mach_from_impact_pressure((ad_real)1e7, (ad_real)1000, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_mach_from_impact_pressure((ad_real)-1, (ad_real)1000, &y),
+               AD_INVALID_INPUT, y);
+    EXPECT(ad_mach_from_impact_pressure((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_impact_pressure_from_cas((ad_real)100, &y), AD_OK, y);
+    EXPECT_OUT(ad_impact_pressure_from_cas((ad_real)3500, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_impact_pressure_from_cas((ad_real)5000, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_impact_pressure_from_cas((ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_cas_from_impact_pressure((ad_real)1e6, &y), AD_OK, y);
+    EXPECT_OUT(ad_cas_from_impact_pressure((ad_real)5e7, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_cas_from_impact_pressure((ad_real)NAN, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_cas_from_impact_pressure((ad_real)1, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_speeds(void)
+{
+    ad_real y = (ad_real)0;
+    ad_real cas = (ad_real)0;
+    ad_real eas = (ad_real)0;
+    ad_real tas = (ad_real)0;
+    /* CAS = EAS = TAS at sea level on a standard day (common practice, no source) */
+    EXPECT(ad_cas_from_mach((ad_real)0.3, (ad_real)101325, &cas) == AD_OK);
+    EXPECT(ad_eas_from_mach((ad_real)0.3, (ad_real)101325, &eas) == AD_OK);
+    EXPECT(ad_tas_from_mach((ad_real)0.3, (ad_real)288.15, &tas) == AD_OK);
+    EXPECT(fabs((double)(cas - eas)) < 1e-3 && fabs((double)(eas - tas)) < 1e-3);
+    EXPECT_OUT(ad_cas_from_mach((ad_real)10, (ad_real)177000, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_cas_from_mach((ad_real)NAN, (ad_real)1, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_cas_from_mach((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_mach_from_cas((ad_real)150, (ad_real)30000, &y), AD_OK, y);
+    EXPECT_OUT(ad_mach_from_cas((ad_real)3500, (ad_real)30000, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_mach_from_cas((ad_real)3000, (ad_real)200, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_mach_from_cas((ad_real)-3, (ad_real)200, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_mach_from_cas((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_eas_from_mach((ad_real)2, (ad_real)1e6, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_eas_from_mach((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_mach_from_eas((ad_real)150, (ad_real)30000, &y), AD_OK, y);
+    EXPECT_OUT(ad_mach_from_eas((ad_real)3000, (ad_real)10, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_mach_from_eas((ad_real)INFINITY, (ad_real)10, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_mach_from_eas((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_tas_from_mach((ad_real)2, (ad_real)40, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_tas_from_mach((ad_real)1, (ad_real)100, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_mach_from_tas((ad_real)250, (ad_real)250, &y), AD_OK, y);
+    EXPECT_OUT(ad_mach_from_tas((ad_real)4000, (ad_real)50, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_mach_from_tas((ad_real)250, (ad_real)-250, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_mach_from_tas((ad_real)1, (ad_real)100, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_dynamic_pressure((ad_real)0.8, (ad_real)25000, &y), AD_OK, y);
+    EXPECT_OUT(ad_dynamic_pressure((ad_real)0.8, (ad_real)NAN, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_dynamic_pressure((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_temperature(void)
+{
+    ad_real y = (ad_real)0;
+    EXPECT_OUT(ad_sat_from_tat((ad_real)250, (ad_real)0.8, (ad_real)1, &y), AD_OK, y);
+    EXPECT_OUT(ad_sat_from_tat((ad_real)250, (ad_real)0.8, (ad_real)1.5, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_sat_from_tat((ad_real)250, (ad_real)-0.8, (ad_real)1, &y),
+               AD_INVALID_INPUT, y);
+    EXPECT(ad_sat_from_tat((ad_real)250, (ad_real)0.8, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_tat_from_sat((ad_real)250, (ad_real)0.8, (ad_real)0.9, &y), AD_OK, y);
+    EXPECT_OUT(ad_tat_from_sat((ad_real)6000, (ad_real)0.8, (ad_real)1, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT(ad_tat_from_sat((ad_real)250, (ad_real)0.8, (ad_real)1, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_chain(void)
+{
+    ad_air_data_t o;
+    const ad_real nb = (ad_real)100;
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)60000, (ad_real)260, (ad_real)1,
+                       (ad_real)101325, 1, nb, &o) == AD_OK);
+    EXPECT(isfinite(o.baro_altitude) && isfinite(o.density_altitude));
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)600000, (ad_real)400, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_OK);
+    EXPECT(isnan(o.baro_altitude) && (o.mach > (ad_real)1));
+    EXPECT(ad_air_data((ad_real)101325, (ad_real)101300, (ad_real)288, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_IMPACT_PRESSURE_ZEROED);
+    EXPECT((o.mach == (ad_real)0) && (o.sat == (ad_real)288));
+    EXPECT(ad_air_data((ad_real)101325, (ad_real)101000, (ad_real)288, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_INVALID_INPUT);
+    EXPECT(isnan(o.mach) && isnan(o.pressure_altitude));
+    EXPECT(ad_air_data((ad_real)1000, (ad_real)9e6, (ad_real)288, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_OUT_OF_RANGE);
+    EXPECT(ad_air_data((ad_real)150000, (ad_real)150000, (ad_real)60, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_OUT_OF_RANGE);
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)60000, (ad_real)260, (ad_real)1,
+                       (ad_real)1000, 1, nb, &o) == AD_OUT_OF_RANGE);
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)60000, (ad_real)260, (ad_real)1,
+                       (ad_real)0, 0, (ad_real)-1, &o) == AD_INVALID_INPUT);
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)-1, (ad_real)260, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_INVALID_INPUT);
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)60000, (ad_real)260, (ad_real)2,
+                       (ad_real)0, 0, nb, &o) == AD_OUT_OF_RANGE);
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)60000, (ad_real)NAN, (ad_real)1,
+                       (ad_real)0, 0, nb, &o) == AD_INVALID_INPUT);
+    EXPECT(ad_air_data((ad_real)50000, (ad_real)60000, (ad_real)260, (ad_real)1,
+                       (ad_real)0, 0, nb, NULL) == AD_INVALID_INPUT);
+}
+
+#define NB 4
+
+static void test_batch_one_input(void)
+{
+    const ad_real x[NB] = { (ad_real)100, (ad_real)50000, (ad_real)NAN, (ad_real)-1 };
+    ad_real y[NB];
+    unsigned char st[NB];
+    EXPECT(ad_check_n(AD_DOM_PRESSURE, x, st, NB) == 2U);
+    EXPECT(ad_check_n((ad_domain_id)99, x, st, NB) == NB);
+    EXPECT(ad_check_n(AD_DOM_PRESSURE, NULL, st, NB) == AD_BATCH_NULL);
+    EXPECT(ad_geopotential_altitude_n(x, y, st, NB) == 1U);
+    EXPECT(ad_geometric_altitude_n(x, y, st, NB) == 1U);
+    EXPECT(ad_pressure_altitude_n(x, y, st, NB) == 2U);
+    EXPECT((st[0] == AD_OK) && (st[2] == AD_INVALID_INPUT) && isnan(y[2]));
+    EXPECT(ad_pressure_at_altitude_n(x, y, st, NB) == 1U);
+    EXPECT(ad_impact_pressure_from_cas_n(x, y, st, NB) == 3U);
+    EXPECT(ad_cas_from_impact_pressure_n(x, y, st, NB) == 2U);
+    EXPECT(ad_pressure_altitude_n(x, NULL, st, NB) == AD_BATCH_NULL);
+    EXPECT(ad_pressure_altitude_n(x, y, st, 0U) == 0U);
+}
+
+static void test_batch_two_inputs(void)
+{
+    const ad_real a[NB] = { (ad_real)0.5, (ad_real)2, (ad_real)NAN, (ad_real)0.8 };
+    const ad_real b[NB] = { (ad_real)50000, (ad_real)250, (ad_real)250, (ad_real)-3 };
+    ad_real y[NB];
+    unsigned char st[NB];
+    EXPECT(ad_baro_corrected_altitude_n(b, b, y, st, NB) != AD_BATCH_NULL);
+    EXPECT(ad_altimeter_setting_n(b, a, y, st, NB) != AD_BATCH_NULL);
+    EXPECT(ad_density_altitude_n(b, b, y, st, NB) != AD_BATCH_NULL);
+    EXPECT(ad_impact_pressure_from_mach_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_mach_from_impact_pressure_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_cas_from_mach_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_mach_from_cas_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_eas_from_mach_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_mach_from_eas_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_tas_from_mach_n(a, b, y, st, NB) == 3U);
+    EXPECT(ad_mach_from_tas_n(a, b, y, st, NB) == 3U);
+    EXPECT(ad_dynamic_pressure_n(a, b, y, st, NB) == 2U);
+    EXPECT(ad_tas_from_mach_n(a, NULL, y, st, NB) == AD_BATCH_NULL);
+    EXPECT(ad_sat_from_tat_n(b, a, a, y, st, NB) == 4U);
+    EXPECT(ad_tat_from_sat_n(b, a, a, y, st, NB) == 4U);
+    EXPECT(ad_tat_from_sat_n(b, a, a, y, NULL, NB) == AD_BATCH_NULL);
+}
+
+static void test_batch_records(void)
+{
+    const ad_real h[NB] = { (ad_real)0, (ad_real)20000, (ad_real)NAN, (ad_real)84852 };
+    const ad_real dt[NB] = { (ad_real)0, (ad_real)10, (ad_real)0, (ad_real)-10 };
+    const ad_real ps[NB] = { (ad_real)101325, (ad_real)50000, (ad_real)101325, (ad_real)20 };
+    const ad_real pt[NB] = { (ad_real)101300, (ad_real)90000, (ad_real)100000, (ad_real)30 };
+    const ad_real tat[NB] = { (ad_real)288, (ad_real)270, (ad_real)288, (ad_real)230 };
+    const ad_real rec[NB] = { (ad_real)1, (ad_real)0.98, (ad_real)1, (ad_real)1 };
+    ad_atmosphere_t atm[NB];
+    ad_air_data_t air[NB];
+    unsigned char st[NB];
+    EXPECT(ad_atmosphere_n(h, dt, atm, st, NB) == 1U);
+    EXPECT(ad_air_data_n(ps, pt, tat, rec, NULL, 0, (ad_real)100, air, st, NB) == 1U);
+    EXPECT((st[0] == AD_IMPACT_PRESSURE_ZEROED) && (st[2] == AD_INVALID_INPUT));
+    EXPECT(ad_air_data_n(ps, pt, tat, rec, ps, 1, (ad_real)100, air, st, NB) == 2U);
+    EXPECT(ad_air_data_n(ps, pt, tat, rec, NULL, 1, (ad_real)100, air, st, NB)
+           == AD_BATCH_NULL);
+    EXPECT(ad_atmosphere_n(h, dt, NULL, st, NB) == AD_BATCH_NULL);
+}
+
+int main(void)
+{
+    test_atmosphere();
+    test_altimetry();
+    test_pitot();
+    test_speeds();
+    test_temperature();
+    test_chain();
+    test_batch_one_input();
+    test_batch_two_inputs();
+    test_batch_records();
+    (void)printf("%s: %d failure(s)\n", failures == 0 ? "PASS" : "FAIL", failures);
+    return (failures == 0) ? 0 : 1;
+}

@@ -1,0 +1,170 @@
+"""The C port as C: generated constants, warnings, static analysis, memory safety.
+
+Tools that may be missing (cppcheck, valgrind, a compiler with sanitizers) skip with a
+message, unless AIRDATA_REQUIRE_TOOLCHAINS=1, which turns the skip into a failure.
+"""
+
+from __future__ import annotations
+
+import importlib.util
+import os
+import shutil
+import subprocess
+import sys
+from fractions import Fraction
+from pathlib import Path
+
+import mpmath
+import pytest
+
+ROOT = Path(__file__).resolve().parents[1]
+C_DIR = ROOT / "bindings" / "c"
+SRC = sorted((C_DIR / "src").glob("*.c"))
+DRIVER = C_DIR / "tests" / "driver.c"
+WARN = ["-std=c99", "-Wall", "-Wextra", "-Wpedantic", "-Wconversion", "-Wdouble-promotion",
+        "-Wshadow", "-Werror", "-O2"]
+INC = [f"-I{C_DIR / 'include'}", f"-I{C_DIR / 'src'}"]
+PRECISIONS = {"double": [], "single": ["-DAIRDATA_SINGLE"]}
+PROFILES = {"icao": [], "us1976": ["-DAIRDATA_PROFILE_US1976"]}
+
+
+def _gen():  # noqa: ANN202 - module object
+    spec = importlib.util.spec_from_file_location("gen_constants",
+                                                  C_DIR / "tools" / "gen_constants.py")
+    assert spec is not None and spec.loader is not None
+    mod = importlib.util.module_from_spec(spec)
+    sys.modules["gen_constants"] = mod
+    spec.loader.exec_module(mod)
+    return mod
+
+
+def need(tool: str) -> str:
+    """Path of ``tool``; skip (or fail under AIRDATA_REQUIRE_TOOLCHAINS=1) without it."""
+    path = shutil.which(tool)
+    if path is None:
+        msg = f"{tool} not found on PATH (apt-get install {tool})"
+        if os.environ.get("AIRDATA_REQUIRE_TOOLCHAINS") == "1":
+            pytest.fail(msg + " and AIRDATA_REQUIRE_TOOLCHAINS=1")
+        pytest.skip(msg)
+    return path
+
+
+def run(cmd: list[str], cwd: Path | None = None) -> subprocess.CompletedProcess[str]:
+    return subprocess.run(cmd, cwd=cwd, capture_output=True, text=True, timeout=120,
+                          check=False)
+
+
+def test_generated_constants_header_is_current() -> None:
+    text = _gen().render()
+    current = (C_DIR / "src" / "ad_constants.h").read_text()
+    assert current == text, "run python bindings/c/tools/gen_constants.py"
+
+
+@pytest.mark.parametrize("text", ["0.2", "1.2", "7.2", "0.15", "287.05287", "1.458e-6",
+                                  "110.4", "6356766", "-0.0065", "0.0028", "9.80665"])
+def test_binary32_rounding_matches_mpmath(text: str) -> None:
+    # mpmath at 24-bit precision rounds to nearest: an independent oracle.
+    gen = _gen()
+    with mpmath.workprec(24):
+        want = float(+mpmath.mpf(text))
+    assert gen.round_binary(Fraction(text), 24) == want
+    assert gen.round_binary(Fraction(text), 53) == float(text)  # Python's float() rounds correctly
+
+
+def _literal(name: str, single: bool) -> float:
+    """Value of a #define of the ICAO block of the generated header."""
+    text = (C_DIR / "src" / "ad_constants.h").read_text()
+    icao = text.split("#else /* ICAO")[1]
+    block = icao.split("#else")[0] if single else icao.split("#else")[1]
+    for line in block.splitlines():
+        parts = line.split()
+        if len(parts) >= 3 and parts[0] == "#define" and parts[1] == name:
+            return float.fromhex(parts[2].strip("()").rstrip("f"))
+    raise KeyError(name)
+
+
+@pytest.mark.parametrize(("name", "expr"), [
+    # exact definitions evaluated by mpmath at 60 digits (NACA Report 1135 eq. 44/100
+    # with gamma = 1.4; ICAO Doc 7488 R = 287.05287, T0 = 288.15 K, from memory)
+    ("AD_RATIO_SONIC", lambda: mpmath.mpf("1.2") ** mpmath.mpf("3.5") - 1),
+    ("AD_RATIO_MAX", lambda: 120 * (mpmath.mpf(720) / 699) ** mpmath.mpf("2.5") - 1),
+    ("AD_PHI_INF", lambda: (7 / mpmath.mpf("7.2")) ** mpmath.mpf("2.5")),
+    ("AD_A0", lambda: mpmath.sqrt(mpmath.mpf("1.4") * mpmath.mpf("287.05287")
+                                  * mpmath.mpf("288.15"))),
+])
+def test_binary32_constants_correctly_rounded(name: str, expr) -> None:  # noqa: ANN001
+    with mpmath.workdps(60):
+        exact = expr()
+    with mpmath.workprec(24):
+        want = float(+exact)
+    assert _literal(name, single=True) == want
+
+
+def test_binary64_constants_are_the_references() -> None:
+    import airdata.pitot as pit  # noqa: PLC0415
+
+    assert _literal("AD_RATIO_MAX", single=False) == pit.RATIO_MAX
+    assert _literal("AD_RATIO_SONIC", single=False) == pit.RATIO_SONIC
+
+
+@pytest.mark.parametrize("profile", list(PROFILES))
+@pytest.mark.parametrize("precision", list(PRECISIONS))
+def test_port_compiles_without_warnings(precision: str, profile: str, tmp_path: Path) -> None:
+    gcc = need("gcc")
+    flags = WARN + INC + PRECISIONS[precision] + PROFILES[profile]
+    res = run([gcc, *flags, "-c", *map(str, SRC), str(DRIVER)], cwd=tmp_path)
+    assert res.returncode == 0, res.stderr
+    assert res.stderr == ""
+
+
+def test_single_build_calls_only_float_libm(tmp_path: Path) -> None:
+    # No double libm function may appear in the binary32 objects.
+    gcc = need("gcc")
+    nm = need("nm")
+    res = run([gcc, *WARN, *INC, "-DAIRDATA_SINGLE", "-c", *map(str, SRC)], cwd=tmp_path)
+    assert res.returncode == 0, res.stderr
+    undefined = run([nm, "-u", *[p.name for p in tmp_path.glob("*.o")]], cwd=tmp_path).stdout
+    symbols = {line.split()[-1] for line in undefined.splitlines() if line.strip()
+               and not line.endswith(":")}
+    for fn in ("exp", "log", "log1p", "expm1", "sqrt"):
+        assert fn not in symbols
+    assert symbols & {"expf", "logf", "log1pf", "expm1f"}
+
+
+@pytest.mark.parametrize("precision", list(PRECISIONS))
+def test_cppcheck_clean(precision: str) -> None:
+    cppcheck = need("cppcheck")
+    res = run([cppcheck, "--enable=warning,style,performance,portability",
+               "--error-exitcode=1", "--std=c99", "-q", "--inline-suppr", *INC,
+               *PRECISIONS[precision], str(C_DIR / "src"), str(DRIVER)])
+    assert res.returncode == 0, res.stderr + res.stdout
+    assert res.stderr.strip() == ""
+
+
+def _build_driver(tmp_path: Path, precision: str, extra: list[str]) -> Path:
+    gcc = need("gcc")
+    exe = tmp_path / f"driver_{precision}"
+    res = run([gcc, *WARN[:-1], "-g", *extra, *INC, *PRECISIONS[precision],
+               *map(str, SRC), str(DRIVER), "-lm", "-o", str(exe)])
+    assert res.returncode == 0, res.stderr
+    return exe
+
+
+@pytest.mark.parametrize("precision", list(PRECISIONS))
+def test_driver_under_address_and_undefined_sanitizers(precision: str, tmp_path: Path) -> None:
+    san = ["-O1", "-fsanitize=address,undefined", "-fno-sanitize-recover=all",
+           "-fno-omit-frame-pointer"]
+    exe = _build_driver(tmp_path, precision, san)
+    res = run([str(exe)])
+    assert res.returncode == 0, res.stdout + res.stderr
+    assert "PASS: 0 failure(s)" in res.stdout
+    assert "runtime error" not in res.stderr
+
+
+@pytest.mark.parametrize("precision", list(PRECISIONS))
+def test_driver_under_valgrind_memcheck(precision: str, tmp_path: Path) -> None:
+    valgrind = need("valgrind")
+    exe = _build_driver(tmp_path, precision, ["-O0"])
+    res = run([valgrind, "-q", "--error-exitcode=9", "--leak-check=full", str(exe)])
+    assert res.returncode == 0, res.stdout + res.stderr
+    assert "PASS: 0 failure(s)" in res.stdout
