@@ -31,6 +31,9 @@ from numpy.typing import NDArray
 
 __all__ = ["Column", "split_header", "ChunkReader", "parse_numbers", "HeaderError"]
 
+#: Fields converted at once by :func:`parse_numbers` before it falls back to one by one.
+_BLOCK = 256
+
 _HEADER = re.compile(r"^\s*(?P<name>[^\[\]]*?)\s*(?:\[\s*(?P<unit>[^\[\]]*?)\s*\])?\s*$")
 
 
@@ -191,17 +194,25 @@ def parse_numbers(fields: list[str]) -> tuple[NDArray[np.float64], NDArray[np.bo
         True where the field is empty or not a number (``nan`` and ``inf`` are numbers:
         the domain checks reject them afterwards).
     """
+    n = len(fields)
+    bad = np.zeros(n, dtype=bool)
     try:
-        values = np.array(fields, dtype=np.float64)
-        return values, np.zeros(len(fields), dtype=bool)
+        return np.array(fields, dtype=np.float64).reshape(n), bad
     except ValueError:
         pass
-    values = np.empty(len(fields), dtype=np.float64)
-    bad = np.zeros(len(fields), dtype=bool)
-    for i, text in enumerate(fields):
+    # Blocks that convert at once go fast; only a block holding a bad field goes one by one.
+    values = np.empty(n, dtype=np.float64)
+    for start in range(0, n, _BLOCK):
+        block = fields[start:start + _BLOCK]
         try:
-            values[i] = float(text)
+            values[start:start + len(block)] = np.array(block, dtype=np.float64)
+            continue
         except ValueError:
-            values[i] = np.nan
-            bad[i] = True
+            pass
+        for i, text in enumerate(block, start):
+            try:
+                values[i] = float(text)
+            except ValueError:
+                values[i] = np.nan
+                bad[i] = True
     return values, bad

@@ -62,6 +62,7 @@ from .. import units as u
 from ..chain import NOISE_BAND, AirData, air_data
 from ..profiles import get_profile
 from ..status import DomainError, Status
+from .compare import Comparison
 from .csvio import ChunkReader, Column, HeaderError, parse_numbers
 from .progress import Progress
 from .quantities import (
@@ -152,6 +153,7 @@ class Summary:
     counts: dict[str, int] = field(default_factory=lambda: {s.name: 0 for s in Status})
     seconds: float = 0.0
     columns: list[str] = field(default_factory=list)
+    comparison: Comparison | None = None
 
     @property
     def bad(self) -> int:
@@ -207,6 +209,16 @@ def register(subparsers: argparse._SubParsersAction) -> None:
                    help="rows per chunk (default 20000)")
     p.add_argument("--delimiter", default=",", metavar="CHAR",
                    help="field separator (default ,)")
+    p.add_argument("--engine", choices=("reference", "cport"), default="reference",
+                   help="what computes the outputs: the Python reference (default) or the "
+                        "bundled C port (icao profile only)")
+    p.add_argument("--precision", choices=("double", "single"), default="double",
+                   help="build of the C port for --engine cport and --compare: binary64 "
+                        "(default) or binary32")
+    p.add_argument("--compare", action="store_true",
+                   help="run the reference and the C port on every row and report the "
+                        "samples where they disagree beyond the vectors' bound "
+                        "K eps scale (exit status 1 if any)")
     p.add_argument("--plot", metavar="FILE",
                    help="draw the main outputs against time into FILE (.png, .pdf, .svg); "
                         "needs matplotlib")
@@ -315,6 +327,7 @@ class _Chunk:
     time: NDArray[np.float64] | None
     tat: NDArray[np.float64]  # SI
     out: AirData
+    ragged: list[int]
 
 
 def _column(rows: list[list[str]], index: int, ragged: bool) -> list[str]:
@@ -323,8 +336,13 @@ def _column(rows: list[list[str]], index: int, ragged: bool) -> list[str]:
     return [r[index] if index < len(r) else "" for r in rows]
 
 
-def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace) -> _Chunk:
-    """Reduce one chunk of rows (lists of field strings)."""
+def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace,
+                 comparison: Comparison | None = None, first_row: int = 1) -> _Chunk:
+    """Reduce one chunk of rows (lists of field strings).
+
+    ``comparison`` (with ``--compare``) collects the disagreements of the reference and
+    the C port; ``first_row`` is the data row number (from 1) of the chunk's first row.
+    """
     n = len(rows)
     width = plan.width
     lengths = np.fromiter(map(len, rows), dtype=np.int64, count=n)
@@ -359,8 +377,21 @@ def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace) -
     ps, pt, tat = si["ps"], si["pt"], si["tat"]
     if ragged:  # a malformed row is not trusted: NaN inputs make it INVALID_INPUT
         ps = np.where(ragged_mask, np.nan, ps)
-    out = air_data(ps, pt, tat, args.recovery, setting, noise_band=noise,
-                   profile=args.profile, strict=False)
+    out = ref = port = None
+    if args.engine == "reference" or args.compare:
+        out = ref = air_data(ps, pt, tat, args.recovery, setting, noise_band=noise,
+                             profile=args.profile, strict=False)
+    if args.engine == "cport" or args.compare:
+        from .compare import port_air_data
+        port = port_air_data(ps, pt, tat, args.recovery, setting, noise, args.profile,
+                             args.precision)
+        if args.engine == "cport":
+            out = port
+    assert out is not None
+    if comparison is not None and ref is not None and port is not None:
+        from .compare import compare_chunk
+        compare_chunk(comparison, first_row, ps, pt, tat, args.recovery, setting, noise,
+                      args.profile, ref, port)
     status = np.asarray(out.status, dtype=np.int8)
     for i in np.flatnonzero(status != Status.OK):
         if notes[i]:
@@ -374,7 +405,8 @@ def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace) -
     for key, _, unit in plan.outputs:
         cols.append(np.asarray(u.from_si(np.asarray(getattr(out, key)), unit)))
     values = np.column_stack(cols) if cols else np.empty((n, 0))
-    return _Chunk(values, status, notes, time_values, tat, out)
+    return _Chunk(values, status, notes, time_values, tat, out,
+                  np.flatnonzero(ragged_mask).tolist())
 
 
 def _join(a: str, b: str) -> str:
@@ -423,7 +455,14 @@ def run(args: argparse.Namespace) -> int:
             check_available()
         except PlotUnavailableError as exc:
             return fail(COMMAND, str(exc), 1)
-    get_profile(args.profile)
+    if (args.engine == "cport" or args.compare) and get_profile(args.profile).name != "icao":
+        parser.error("the bundled C port is compiled with the icao profile only")
+    if (args.engine == "cport" or args.compare):
+        from .compare import available
+        if not available():
+            return fail(COMMAND, "the C port (airdata._cport64/_cport32) is not built: "
+                        "reinstall the package with a C compiler, or run without "
+                        "--engine cport/--compare", 1)
     try:
         summary = _run(args)
     except _UsageError as exc:
@@ -434,20 +473,49 @@ def run(args: argparse.Namespace) -> int:
         return fail(COMMAND, f"{exc.filename}: no such file", 1)
     except DomainError as exc:
         return fail(COMMAND, str(exc), 1)
+    cmp = summary.comparison
     if args.json:
-        json.dump({"input": args.input, "output": args.output, "rows": summary.rows,
-                   "status_counts": summary.counts, "columns": summary.columns,
-                   "seconds": round(summary.seconds, 3), "profile": args.profile,
-                   "plot": args.plot}, sys.stdout, indent=2)
+        doc = {"input": args.input, "output": args.output, "rows": summary.rows,
+               "status_counts": summary.counts, "columns": summary.columns,
+               "seconds": round(summary.seconds, 3), "profile": args.profile,
+               "engine": args.engine, "plot": args.plot}
+        if args.engine == "cport":
+            doc["precision"] = args.precision
+        if cmp is not None:
+            doc["compare"] = cmp.as_dict()
+        json.dump(doc, sys.stdout, indent=2)
         sys.stdout.write("\n")
     if not args.quiet:
         rate = summary.rows / summary.seconds if summary.seconds > 0 else float("inf")
         counts = ", ".join(f"{n} {name}" for name, n in summary.counts.items() if n)
         print(f"airdata reduce: {summary.rows} rows ({counts or 'none'}) in "
               f"{summary.seconds:.2f} s, {rate:,.0f} rows/s -> {args.output}", file=sys.stderr)
+    if cmp is not None:
+        if not args.quiet:
+            _report_comparison(cmp)
+        if cmp.disagreements:
+            return fail(COMMAND, f"reference and C port ({args.precision}) disagree on "
+                        f"{cmp.disagreeing_samples} of {cmp.samples} samples", 1)
     if args.fail_on_bad and summary.bad:
         return fail(COMMAND, f"{summary.bad} row(s) could not be reduced", 1)
     return 0
+
+
+def _report_comparison(cmp: Comparison) -> None:
+    d = cmp.as_dict()
+    print(f"airdata reduce: compare reference vs C port ({cmp.precision}): "
+          f"{cmp.disagreeing_samples} of {cmp.samples} samples disagree beyond "
+          f"K eps scale (K = {d['k']}, eps = {d['eps']:.3g})", file=sys.stderr)
+    if cmp.worst:
+        worst = max(cmp.worst.items(), key=lambda kv: kv[1])
+        print(f"  largest |port - reference| / bound: {worst[1]:.3g} ({worst[0]})",
+              file=sys.stderr)
+    for dis in cmp.kept[:20]:
+        print(f"  row {dis.row}: {dis.output}: reference {dis.reference!r}, port "
+              f"{dis.port!r}, bound {dis.bound:.3g}", file=sys.stderr)
+    if cmp.disagreements > 20:
+        print(f"  ... {cmp.disagreements - 20} more (--json lists the first {cmp.limit})",
+              file=sys.stderr)
 
 
 def _open_output(path: str) -> tuple[IO[str], str | None]:
@@ -465,6 +533,8 @@ def _run(args: argparse.Namespace) -> Summary:
         header = list(reader.header) + [h for _, h, _ in plan.outputs] \
             + [f"{args.prefix}status", f"{args.prefix}note"]
         summary = Summary(columns=header)
+        if args.compare:
+            summary.comparison = Comparison(args.precision)
         collector = None
         if args.plot:
             from .plotting import Collector
@@ -477,7 +547,7 @@ def _run(args: argparse.Namespace) -> Summary:
             writer.writerow(header)
             width = plan.width
             for rows in reader.chunks():
-                ch = reduce_chunk(rows, plan, args)
+                ch = reduce_chunk(rows, plan, args, summary.comparison, summary.rows + 1)
                 vals = ch.values.tolist()
                 nan_rows = np.flatnonzero(np.isnan(ch.values).any(axis=1)) \
                     if ch.values.size else []
@@ -487,12 +557,10 @@ def _run(args: argparse.Namespace) -> Summary:
                     for i in range(len(vals)):
                         vals[i] = fmt(vals[i])
                 names = [_STATUS_NAMES[s] for s in ch.status.tolist()]
-                out_rows = []
-                for i, row in enumerate(rows):
-                    if len(row) != width:
-                        row = (row + [""] * width)[:width]
-                    out_rows.append(row + vals[i] + [names[i], ch.notes[i]])
-                writer.writerows(out_rows)
+                for i in ch.ragged:  # keep the columns aligned; extra fields are in the note
+                    rows[i] = (rows[i] + [""] * width)[:width]
+                writer.writerows([row + v + [st, note] for row, v, st, note
+                                  in zip(rows, vals, names, ch.notes, strict=True)])
                 for s, n in zip(*np.unique(ch.status, return_counts=True), strict=True):
                     summary.counts[_STATUS_NAMES[int(s)]] += int(n)
                 summary.rows += len(rows)
