@@ -1,0 +1,156 @@
+"""Tolerance basis of the vectors: the condition scale, and the binary32 check level.
+
+Condition scale (../shared/conventions.md, section 3), per case and output::
+
+    scale = |y| + sum_i |df/dx_i * x_i|
+
+The derivatives are one-sided differences in binary64 on the reference, taken on both
+sides of x_i with relative steps 2**-20 and 2**-34, keeping the largest magnitude
+among the sides whose point is valid.  At a range end this is the inward side only;
+at a seam (a layer base, M = 1, a zeroed impact pressure) it is the larger of the two
+one-sided slopes; the small step catches slopes that change fast (square roots near
+zero).  The rounding noise of a difference is at most about 2**-16 of the scale, and
+the truncation error of the large step about 2**-20 relative, so 3 significant
+digits, which is all that is stored, are right.  Inputs that are zero contribute
+nothing (x_i = 0); integer flags have no derivative.
+
+Acceptance bound of a port: ``|got - expected| <= K * eps * scale`` with eps = 2**-52
+for a binary64 port and 2**-23 for a binary32 port; NaN is expected exactly where the
+expected value is NaN (then the scale is NaN too).
+
+Binary32 check level (``binary32_check``): a binary32 port receives the inputs rounded
+to binary32 and compares them with its range ends rounded to binary32.  Each case says
+how a binary32 check treats it:
+
+``"skip"``
+    An input or expected output is finite, nonzero and outside the normal binary32
+    range (magnitude below 2**-126 or above the largest binary32): no binary32 result
+    can be judged against a relative bound.  The case is skipped.
+``"lenient"``
+    The status may legitimately differ in binary32: the binary32-rounded input lands on
+    the other side of a binary32-rounded range end of its own, or the reference status
+    at the binary32-rounded inputs differs, or it differs when one of them is moved
+    alone by a relative 2**-19 (16 ulp of binary32) up or down without crossing its own
+    range end (a derived limit nearby).  The status is not compared, and NaN on either
+    side is accepted; two numbers must still agree within the bound.
+``"full"``
+    Everything else: status and outputs are compared as for binary64.
+
+A binary64 check ignores this field and compares every case fully.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+from numpy.typing import NDArray
+
+from .._inputs import Domain
+from ..profiles import Profile
+from ..status import Status
+from .catalogue import FunctionSpec, evaluate
+
+__all__ = ["K", "EPS_BINARY64", "EPS_BINARY32", "STEPS", "condition_scale",
+           "round_scale", "binary32_check", "TOLERANCE_RULE", "BINARY32_RULE"]
+
+F64 = NDArray[np.float64]
+
+#: The one documented multiplier of the acceptance bound.
+K = 8
+EPS_BINARY64 = 2.0 ** -52
+EPS_BINARY32 = 2.0 ** -23
+#: Relative steps of the one-sided differences.
+STEPS = (2.0 ** -20, 2.0 ** -34)
+#: Relative move of each binary32-rounded input for the binary32 status rule.
+BINARY32_MOVE = 2.0 ** -19
+#: Normal binary32 range.
+FLT_MIN = 2.0 ** -126
+FLT_MAX = float(np.finfo(np.float32).max)
+
+TOLERANCE_RULE = (
+    "|got - expected| <= k * eps * scale, eps = eps_binary64 or eps_binary32 by the port's "
+    "precision; scale = |y| + sum_i |df/dx_i * x_i| (3 significant digits); NaN expected "
+    "exactly where expected is NaN"
+)
+BINARY32_RULE = (
+    "binary32_check: 'skip' when an input or expected output is finite, nonzero and outside "
+    "the normal binary32 range; 'lenient' (status not compared, NaN on either side accepted, "
+    "numbers within the bound) when a binary32-rounded input crosses its own binary32-rounded "
+    "range end, or the reference status changes at the binary32-rounded inputs or when one "
+    "of them moves by a relative 2**-19 without crossing its own range end; else 'full'"
+)
+
+
+def _valid(status: NDArray[np.int8]) -> NDArray[np.bool_]:
+    return (status == Status.OK) | (status == Status.IMPACT_PRESSURE_ZEROED)
+
+
+def _outputs(spec: FunctionSpec, x: dict[str, F64], profile: Profile) -> dict[str, F64]:
+    if spec.status_of is not None:
+        return spec.status_of(x, profile)[0]
+    return spec.call(x, profile, False)
+
+
+def condition_scale(spec: FunctionSpec, x: dict[str, F64], y: dict[str, F64],
+                    status: NDArray[np.int8], profile: Profile) -> dict[str, F64]:
+    """Unrounded condition scale of every output of every case (NaN where y is NaN)."""
+    scale = {o: np.abs(y[o]) for o, _ in spec.outputs}
+    valid = _valid(status)
+    for arg in spec.real_args:
+        xv = x[arg.name]
+        with np.errstate(invalid="ignore"):
+            sel = np.flatnonzero(valid & np.isfinite(xv) & (xv != 0.0))
+        if sel.size == 0:
+            continue
+        sub = {k: v[sel] for k, v in x.items()}
+        x0 = sub[arg.name]
+        best = {o: np.zeros(sel.size) for o, _ in spec.outputs}
+        for step in STEPS:
+            for sign in (1.0, -1.0):
+                xs = x0 * (1.0 + sign * step)
+                dx = xs - x0
+                moved = dict(sub)
+                moved[arg.name] = xs
+                yp = _outputs(spec, moved, profile)
+                for o, _ in spec.outputs:
+                    with np.errstate(invalid="ignore", over="ignore", divide="ignore"):
+                        term = np.abs((yp[o] - y[o][sel]) / dx * x0)
+                    best[o] = np.fmax(best[o], np.where(np.isfinite(term), term, 0.0))
+        for o, _ in spec.outputs:
+            scale[o][sel] = scale[o][sel] + best[o]
+    return scale
+
+
+def round_scale(s: F64) -> F64:
+    """Scale rounded to 3 significant decimal digits (NaN and 0 kept)."""
+    return np.array([float(f"{v:.2e}") if np.isfinite(v) else v for v in s.tolist()],
+                    dtype=np.float64)
+
+
+def binary32_check(spec: FunctionSpec, x: dict[str, F64], y: dict[str, F64],
+                   status: NDArray[np.int8], profile: Profile) -> list[str]:
+    """The ``binary32_check`` level of every case (see the module docstring)."""
+    real = {a.name for a in spec.real_args}
+    n = status.shape[0]
+    abnormal = np.zeros(n, dtype=bool)
+    with np.errstate(over="ignore", invalid="ignore"):
+        for v in [x[k] for k in real] + [y[o] for o, _ in spec.outputs]:
+            a = np.abs(v)
+            abnormal |= np.isfinite(v) & (v != 0.0) & ((a < FLT_MIN) | (a > FLT_MAX))
+        x32 = {k: (v.astype(np.float32).astype(np.float64) if k in real else v)
+               for k, v in x.items()}
+    lenient = evaluate(spec, x32, profile)[1] != status
+    for arg in spec.real_args:
+        assert arg.domain is not None
+        d = arg.domain(profile)
+        with np.errstate(over="ignore"):
+            d32 = Domain(float(np.float32(d.lo)), float(np.float32(d.hi)), d.unit, d.sign,
+                         d.safe)
+        lenient |= d32.classify(x32[arg.name]) != d.classify(x[arg.name])
+        own32 = d.classify(x32[arg.name])
+        for sign in (1.0, -1.0):
+            moved = dict(x32)
+            v = x32[arg.name] * (1.0 + sign * BINARY32_MOVE)
+            moved[arg.name] = np.where(d.classify(v) == own32, v, x32[arg.name])
+            lenient |= evaluate(spec, moved, profile)[1] != status
+    return ["skip" if a else ("lenient" if b else "full")
+            for a, b in zip(abnormal.tolist(), lenient.tolist(), strict=True)]
