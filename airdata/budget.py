@@ -64,6 +64,9 @@ OUTPUTS: tuple[str, ...] = ("pressure_altitude", "cas", "mach", "tas", "sat", "e
 DISPLAY_UNITS: dict[str, str] = {"pressure_altitude": "ft", "cas": "kt", "mach": "1",
                                  "tas": "kt", "sat": "K", "eas": "kt"}
 
+_TITLES = {"pressure_altitude": "pressure altitude", "cas": "CAS", "mach": "Mach",
+           "tas": "TAS", "sat": "SAT", "eas": "EAS"}
+
 #: Impact pressure of the sensitivities: zero is refused (d/dqc is infinite there).
 _QC = Domain(0.0, 1.0e8, "Pa", "positive", 1000.0)
 _SPEED = Domain(0.0, 4000.0, "m/s", "positive", 100.0)
@@ -576,15 +579,16 @@ def plot_budget(
             cs = ax.contour(x, y, z, colors="k", linewidths=0.5)
             ax.clabel(cs, fontsize=7)
         fig.colorbar(mesh, ax=ax, label=f"{quantity} error, {'Mach' if unit == '1' else unit}")
-        ax.set_title(o.replace("_", " "))
+        ax.set_title(_TITLES[o])
         ax.set_xlabel("CAS, kt")
         ax.set_ylabel("pressure altitude, ft")
     for ax in list(axes.flat)[len(outputs):]:
         ax.set_visible(False)
     a = budget.accuracy
-    fig.suptitle(f"Error budget ({budget.method}, {budget.pitot} sensor): ps "
-                 f"{a.ps_bias:g}+-{a.ps_noise:g} Pa, {budget.pitot} {a.pitot_bias:g}+-"
-                 f"{a.pitot_noise:g} Pa, TAT {a.tat_bias:g}+-{a.tat_noise:g} K", fontsize=10)
+    how = "linear" if budget.method == "linear" else f"Monte Carlo, {budget.samples} samples"
+    fig.suptitle(f"Error budget ({how}); sensor bias / sd: static {a.ps_bias:g} / "
+                 f"{a.ps_noise:g} Pa, {budget.pitot} {a.pitot_bias:g} / {a.pitot_noise:g} Pa, "
+                 f"TAT {a.tat_bias:g} / {a.tat_noise:g} K", fontsize=10)
     if path is not None:
         fig.savefig(path, dpi=120)
     return fig

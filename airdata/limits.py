@@ -727,7 +727,8 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
     Parameters
     ----------
     env : Envelope
-        The table from :func:`envelope`.
+        The table from :func:`envelope`; the chart is drawn on a fine column of
+        altitudes over the same range (the crossover included), not on its rows.
     path : str or Path, optional
         Write the chart there (format from the suffix: .png, .svg, .pdf).
 
@@ -749,6 +750,12 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
 
     kt = 1852.0 / 3600.0
     ft = 0.3048
+    # Draw on a fine column with the crossover in it, so that the corner is exact.
+    lo, hi = float(env.altitude.min()), float(env.altitude.max())
+    fine = np.union1d(np.linspace(lo, hi, 400),
+                      [env.crossover_altitude] if lo < env.crossover_altitude < hi else [])
+    env = envelope(env.aircraft, fine, dT=env.dT, load_factor=env.load_factor,
+                   profile=env.profile)
     fig, axes = plt.subplots(1, 2, figsize=(11.0, 6.0), sharey=True, layout="constrained")
     hft = env.altitude / ft
     for ax, key, title in ((axes[0], "cas", "calibrated airspeed"),
@@ -768,7 +775,7 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
         ax.set_title(f"{key.upper()} limits")
         ax.grid(True, lw=0.4, color="0.8")
     axes[0].set_ylabel("pressure altitude, ft")
-    axes[0].legend(loc="upper left", fontsize=8, frameon=False)
+    axes[0].legend(loc="center", fontsize=8, frameon=False)
     fig.suptitle(f"Speed envelope: {env.aircraft.name} (profile {env.profile}, "
                  f"ISA {env.dT:+.0f} K, n = {env.load_factor:g})")
     if path is not None:

@@ -74,6 +74,6 @@ def test_plot_budget_panels() -> None:
                      SensorAccuracy(ps_noise=50.0, pitot_noise=30.0))
     fig = plot_budget(b, ("pressure_altitude", "cas"))
     titles = [ax.get_title() for ax in fig.get_axes() if ax.get_title()]
-    assert titles == ["pressure altitude", "cas"]
+    assert titles == ["pressure altitude", "CAS"]
     with pytest.raises(ValueError, match="unknown output"):
         plot_budget(b, ("altitude",))
