@@ -416,3 +416,45 @@ def test_envelope_argument_errors() -> None:
         envelope(DEMO, [0.0, 90000.0])
     with pytest.raises(ValueError, match="one-dimensional"):
         envelope(DEMO, [[0.0, 1000.0]])
+
+
+# ------------------------------------------------------------------ accuracy sweeps
+
+EPS = 2.0**-52
+
+
+def _cse(got: float, ref: mp.mpf, fn: object, x: list[mp.mpf]) -> float:
+    """Condition-scaled error of the project's accuracy metric; derivatives by mpmath."""
+    scale = abs(ref)
+    for j in range(len(x)):
+        def g(t: mp.mpf, j: int = j) -> mp.mpf:
+            y = list(x)
+            y[j] = t
+            return fn(*y)  # type: ignore[operator]
+        scale += abs(mp.diff(g, x[j]) * x[j])
+    return float(abs(mp.mpf(got) - ref) / (EPS * scale))
+
+
+def test_crossover_and_stall_cas_accuracy_sweep() -> None:
+    # cse <= 2 against NACA Report 1135 eq. 44 + ICAO atmosphere in mpmath (50 digits),
+    # over random CAS 60..350 m/s, Mach 0.3..0.99, weights, areas, CLmax, altitudes.
+    rng = np.random.default_rng(5)
+    worst = 0.0
+    for _ in range(30):
+        cas, mach = rng.uniform(60.0, 350.0), rng.uniform(0.3, 0.99)
+        ref = mp_crossover(mp.mpf(cas), mp.mpf(mach))
+        if not -4900 < ref < 32000:
+            continue
+        got = crossover_altitude(cas, mach)
+        worst = max(worst, _cse(got, ref, mp_crossover, [mp.mpf(cas), mp.mpf(mach)]))
+
+    def sc(p: mp.mpf, w: mp.mpf, s: mp.mpf, cl: mp.mpf) -> mp.mpf:
+        m = mp_stall_eas(w, s, cl) / (A0 * mp.sqrt(p / P0))
+        return A0 * mp_finv(p * mp_f(m) / P0)
+
+    for _ in range(30):
+        ps = float(pressure_at_altitude(rng.uniform(-4000.0, 30000.0)))
+        w, s, cl = rng.uniform(1e3, 1e6), rng.uniform(5.0, 300.0), rng.uniform(0.5, 3.0)
+        x = [mp.mpf(v) for v in (ps, w, s, cl)]
+        worst = max(worst, _cse(stall_cas(w, s, cl, ps), sc(*x), sc, x))
+    assert worst <= 2.0, worst
