@@ -540,7 +540,7 @@ def plot_budget(
     Returns
     -------
     matplotlib.figure.Figure
-        The figure.
+        The figure, not attached to pyplot (no backend is selected or changed).
 
     Raises
     ------
@@ -557,16 +557,12 @@ def plot_budget(
             raise ValueError(f"unknown output {o!r}: choose from {OUTPUTS}")
     if quantity not in ("rms", "sd", "shift"):
         raise ValueError(f"quantity = {quantity!r}: choose 'rms', 'sd' or 'shift'")
-    import matplotlib
-
-    if path is not None:
-        matplotlib.use("Agg")
-    import matplotlib.pyplot as plt
+    from matplotlib.figure import Figure
 
     ncol = min(3, len(outputs))
     nrow = -(-len(outputs) // ncol)
-    fig, axes = plt.subplots(nrow, ncol, figsize=(4.2 * ncol, 3.6 * nrow), squeeze=False,
-                             layout="constrained")
+    fig = Figure(figsize=(4.2 * ncol, 3.6 * nrow), layout="constrained")
+    axes = fig.subplots(nrow, ncol, squeeze=False)
     x = np.asarray(from_si(budget.cas, "kt"))
     y = np.asarray(from_si(budget.altitude, "ft"))
     data = getattr(budget, quantity)

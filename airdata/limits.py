@@ -735,18 +735,14 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
     Returns
     -------
     matplotlib.figure.Figure
-        The figure.
+        The figure, not attached to pyplot (no backend is selected or changed).
 
     Raises
     ------
     ImportError
         matplotlib is not installed (it is an optional extra).
     """
-    import matplotlib
-
-    if path is not None:
-        matplotlib.use("Agg")
-    import matplotlib.pyplot as plt
+    from matplotlib.figure import Figure
 
     kt = 1852.0 / 3600.0
     ft = 0.3048
@@ -756,7 +752,8 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
                       [env.crossover_altitude] if lo < env.crossover_altitude < hi else [])
     env = envelope(env.aircraft, fine, dT=env.dT, load_factor=env.load_factor,
                    profile=env.profile)
-    fig, axes = plt.subplots(1, 2, figsize=(11.0, 6.0), sharey=True, layout="constrained")
+    fig = Figure(figsize=(11.0, 6.0), layout="constrained")
+    axes = fig.subplots(1, 2, sharey=True)
     hft = env.altitude / ft
     for ax, key, title in ((axes[0], "cas", "calibrated airspeed"),
                            (axes[1], "tas", "true airspeed")):

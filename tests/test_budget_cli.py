@@ -67,9 +67,6 @@ def test_budget_plot_written(tmp_path: Path) -> None:
 
 def test_plot_budget_panels() -> None:
     pytest.importorskip("matplotlib")
-    import matplotlib
-
-    matplotlib.use("Agg")
     b = error_budget([0.0, 5000.0, 10000.0], [80.0, 150.0, 220.0],
                      SensorAccuracy(ps_noise=50.0, pitot_noise=30.0))
     fig = plot_budget(b, ("pressure_altitude", "cas"))

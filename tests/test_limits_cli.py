@@ -65,9 +65,6 @@ def test_limits_plot_written(tmp_path: Path) -> None:
 
 def test_plot_envelope_axes() -> None:
     pytest.importorskip("matplotlib")
-    import matplotlib
-
-    matplotlib.use("Agg")
     fig = plot_envelope(envelope(DEMO))
     axes = fig.get_axes()
     assert [ax.get_xlabel() for ax in axes] == ["calibrated airspeed, kt", "true airspeed, kt"]
