@@ -8,12 +8,14 @@ U.S. Standard Atmosphere 1976 (NOAA-S/T 76-1562), sections 1.2-1.3.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from decimal import Decimal
 from functools import cache
 from typing import NamedTuple
 
 import numpy as np
 from numpy.typing import NDArray
 
+from . import _dd as dd
 from . import _domains as dom
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .profiles import GAMMA, Profile, get_profile
@@ -29,7 +31,9 @@ class LayerTable(NamedTuple):
     ``m = L/Tb`` and ``k = g0/(R L)`` for gradient layers (``k = 0`` in isothermal
     layers); ``c = g0/(R Tb)`` for isothermal layers (``c = 0`` in gradient layers);
     ``n = -R L/g0`` (exponent of the inverse); ``sh = -R Tb/g0`` (inverse isothermal
-    scale); ``rho_b`` base densities; ``kd = -R L/(g0 + R L)`` (density inverse).
+    scale); ``rho_b`` base densities; ``kd = -R L/(g0 + R L)`` (density inverse);
+    ``pb_lo`` the low parts of the base pressures as double-doubles (pb + pb_lo is the
+    base pressure to about 1e-32 relative).
     """
 
     hb: F64
@@ -44,6 +48,7 @@ class LayerTable(NamedTuple):
     sh: F64
     rho_b: F64
     kd: F64
+    pb_lo: F64
 
 
 @cache
@@ -63,7 +68,8 @@ def layer_table(profile: Profile) -> LayerTable:
     sh = -(r * tb) / g0
     rho_b = pb / (r * tb)
     kd = np.where(grad, -(r * lapse) / (g0 + r * lapse), 0.0)
-    tables = (hb, lapse, tb, pb, grad, m, k, c, n, sh, rho_b, kd)
+    pb_lo = np.array([float(p - Decimal(float(p))) for p in profile.exact("base_pressure")])
+    tables = (hb, lapse, tb, pb, grad, m, k, c, n, sh, rho_b, kd, pb_lo)
     for a in tables:
         a.setflags(write=False)
     return LayerTable(*tables)
@@ -79,14 +85,69 @@ def standard_temperature(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
     return t.tb[i] + t.lapse[i] * (h - t.hb[i])
 
 
-def standard_pressure(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
-    """ATM-3: p = pb exp(-k log1p(m dh)) (gradient) or pb exp(-c dh) (isothermal).
+def pressure_dd(h: F64, i: NDArray[np.intp], t: LayerTable) -> tuple[F64, F64]:
+    """ATM-3 kernel as a double-double: p = (pb + pb_lo) exp(e).
 
-    Both branches are one expression: in a gradient layer ``c = 0`` and in an
-    isothermal one ``k = m = 0``, so the unused term adds an exact zero.
+    e = -(k log1p(m dh) + c dh) covers both branches: in a gradient layer ``c = 0`` and
+    in an isothermal one ``k = m = 0``, so the unused term adds an exact zero.  The
+    product with the double-double base pressure leaves one rounding (of exp) besides
+    the final one.
     """
     dh = h - t.hb[i]
-    return t.pb[i] * np.exp(-(t.k[i] * np.log1p(t.m[i] * dh) + t.c[i] * dh))
+    e = np.exp(-(t.k[i] * np.log1p(t.m[i] * dh) + t.c[i] * dh))
+    return dd.mul((t.pb[i], t.pb_lo[i]), (e, np.zeros_like(e)))
+
+
+def standard_pressure(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
+    """ATM-3: the standard pressure at geopotential altitude h in layer i, Pa."""
+    return pressure_dd(h, i, t)[0]
+
+
+class DDTables(NamedTuple):
+    """Double-double per-layer constants (hi, lo pairs) and scalar constants."""
+
+    tb: tuple[F64, F64]
+    lapse: tuple[F64, F64]
+    beta: tuple[float, float]
+    r_gas: tuple[float, float]
+
+
+@cache
+def dd_tables(prof: Profile) -> DDTables:
+    """The double-double constants of ``prof``; every hi part equals the binary64 value."""
+    def pairs(values: tuple[Decimal, ...]) -> tuple[F64, F64]:
+        both = [dd.const(v) for v in values]
+        return np.array([h for h, _ in both]), np.array([lo for _, lo in both])
+
+    return DDTables(pairs(prof.exact("base_temperature")), pairs(prof.exact("lapse_rate")),
+                    dd.const(prof.exact("beta")), dd.const(prof.exact("R")))
+
+
+def state_dd(h: F64, dT: F64, i: NDArray[np.intp], t: LayerTable,
+             prof: Profile) -> tuple[F64, F64, F64, F64, F64]:
+    """ATM-2..ATM-6 kernel in double-double: T, p, rho, mu, nu.
+
+    T = Tb + L (h - hb) + dT and rho = p/(R T), mu = beta T sqrt(T)/(T + S),
+    nu = mu R T/p are evaluated in double-double arithmetic (:mod:`airdata._dd`) from
+    double-double constants, and p from :func:`pressure_dd`, so each output is rounded
+    about once.  In plain binary64 the
+    rounded T, amplified 1.8 times in nu, and five to seven roundings would reach a
+    condition-scaled error near 3 where the condition scale is smallest (near sea
+    level).  h - hb is exact (Sterbenz: every layer spans less than a factor 2 in h).
+    """
+    c = dd_tables(prof)
+    zero = np.zeros_like(h)
+    dh = h - t.hb[i]
+    temp = dd.add(dd.add((c.tb[0][i], c.tb[1][i]),
+                         dd.mul((c.lapse[0][i], c.lapse[1][i]), (dh, zero))), (dT, zero))
+    p = pressure_dd(h, i, t)
+    r_gas = (np.full_like(h, c.r_gas[0]), np.full_like(h, c.r_gas[1]))
+    rho = dd.div(p, dd.mul(r_gas, temp))
+    beta = (np.full_like(h, c.beta[0]), np.full_like(h, c.beta[1]))
+    mu = dd.div(dd.mul(dd.mul(beta, temp), dd.sqrt_dd(temp)),
+                dd.add(temp, (np.full_like(h, prof.sutherland_s), zero)))
+    nu = dd.div(dd.mul(dd.mul(mu, r_gas), temp), p)
+    return temp[0], p[0], rho[0], mu[0], nu[0]
 
 
 @dataclass(frozen=True)
@@ -180,12 +241,8 @@ def atmosphere(
     t = layer_table(prof)
     hh = args["h"]
     i = layer_of_altitude(hh, t)
-    temp = standard_temperature(hh, i, t) + args["dT"]
-    p = standard_pressure(hh, i, t)
-    rho = p / (prof.R * temp)
+    temp, p, rho, mu, nu = state_dd(hh, args["dT"], i, t, prof)
     a = np.sqrt((GAMMA * prof.R) * temp)
-    mu = prof.sutherland_beta * temp * np.sqrt(temp) / (temp + prof.sutherland_s)
-    nu = mu / rho
     return Atmosphere(
         temperature=args.finish(temp),
         pressure=args.finish(p),

@@ -173,7 +173,17 @@ class Profile:
         }
         for key, value in values.items():
             object.__setattr__(self, key, value)
+        # 40-digit values kept for the double-double kernels (airdata._dd).
+        object.__setattr__(self, "_exact", MappingProxyType({
+            "R": r, "beta": d["beta"], "base_pressure": press, "base_temperature": temps,
+            "lapse_rate": tuple(Decimal(lr) for lr in _LAPSE_RATES),
+        }))
         object.__setattr__(self, "definitions", MappingProxyType(dict(self.definitions)))
+
+    def exact(self, key: str) -> Decimal | tuple[Decimal, ...]:
+        """A constant in 40-digit decimal: ``"R"``, ``"beta"``, ``"base_pressure"``,
+        ``"base_temperature"`` or ``"lapse_rate"`` (the last three per layer)."""
+        return self._exact[key]  # type: ignore[attr-defined, no-any-return]
 
     def as_dict(self) -> dict[str, object]:
         """Every constant, defining and derived, as plain JSON-ready values."""
