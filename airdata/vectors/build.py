@@ -377,7 +377,8 @@ def suite_files(profile: Profile | str | None = None,
     return files
 
 
-def build_suite(out_dir: str | Path, profile: Profile | str | None = None) -> dict[str, Any]:
+def build_suite(out_dir: str | Path, profile: Profile | str | None = None,
+                specs: tuple[FunctionSpec, ...] = CATALOGUE) -> dict[str, Any]:
     """Write a complete suite under ``out_dir``; returns the manifest's totals.
 
     Files of an earlier suite that the new one does not contain are left alone only
@@ -385,7 +386,7 @@ def build_suite(out_dir: str | Path, profile: Profile | str | None = None) -> di
     files are removed so the directory holds exactly one suite.
     """
     out = Path(out_dir)
-    files = suite_files(profile)
+    files = suite_files(profile, specs)
     for sub, pattern in (("functions", "*.json"), ("schema", "*.json"), ("c", "*.h")):
         d = out / sub
         if d.is_dir():
