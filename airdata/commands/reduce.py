@@ -508,7 +508,8 @@ def _report_comparison(cmp: Comparison) -> None:
           f"K eps scale (K = {d['k']}, eps = {d['eps']:.3g})", file=sys.stderr)
     if cmp.worst:
         worst = max(cmp.worst.items(), key=lambda kv: kv[1])
-        print(f"  largest |port - reference| / bound: {worst[1]:.3g} ({worst[0]})",
+        print(f"  largest |port - reference| / bound (upper estimate): {worst[1]:.3g} "
+              f"({worst[0]})",
               file=sys.stderr)
     for dis in cmp.kept[:20]:
         print(f"  row {dis.row}: {dis.output}: reference {dis.reference!r}, port "
