@@ -265,6 +265,20 @@ def test_column_mapping_units_prefix_and_stdin(tmp_path: Path) -> None:
     assert r.returncode == 1 and "--prefix" in r.stderr
 
 
+def test_digits_rounds_the_outputs_only(tmp_path: Path) -> None:
+    src = write(tmp_path / "in.csv",
+                "ps[Pa],pt[Pa],tat[K],tag\n101325.123456,103000.5,290.123456789,x\n"
+                ",103000,290,y\n")
+    r = airdata_cmd("reduce", str(src), "-o", "-", "--digits", "4", "--only", "mach,hp",
+                    "--si", "-q")
+    assert r.returncode == 0, r.stderr
+    rows = list(csv.reader(io.StringIO(r.stdout)))
+    assert rows[1][:4] == ["101325.123456", "103000.5", "290.123456789", "x"]
+    ref = airdata.air_data(101325.123456, 103000.5, 290.123456789)
+    assert rows[1][4] == f"{ref.mach:.4g}" and rows[1][5] == f"{ref.pressure_altitude:.4g}"
+    assert rows[2][4:] == ["", "", "INVALID_INPUT", "ps[Pa]: empty"]
+
+
 def test_usage_errors_exit_2(tmp_path: Path) -> None:
     src = write(tmp_path / "in.csv", "ps[Pa],pt[Pa],tat[K]\n101325,101400,288\n")
     r = airdata_cmd("reduce", str(src))

@@ -108,8 +108,9 @@ class Comparison:
     kept : list of Disagreement
         The first ``limit`` disagreements.
     worst : dict of str to float
-        Largest |port - reference| / bound per output over agreeing and disagreeing
-        samples alike (where a bound was needed).
+        Largest |port - reference| / bound per output, over every sample.  Where the
+        difference was within K eps |y| the full scale was not computed and K eps |y|
+        (never more than the bound) stands in, so this is an upper estimate.
     """
 
     precision: str
