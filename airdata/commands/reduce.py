@@ -467,6 +467,13 @@ def run(args: argparse.Namespace) -> int:
         summary = _run(args)
     except _UsageError as exc:
         parser.error(str(exc))
+    except KeyboardInterrupt:
+        return fail(COMMAND, "interrupted (an output file is not left behind)", 130)
+    except BrokenPipeError:
+        # The reader of standard output went away (e.g. "| head"): stop quietly.
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+        return 1
     except (HeaderError, csv.Error, UnicodeDecodeError) as exc:
         return fail(COMMAND, str(exc), 1)
     except FileNotFoundError as exc:
@@ -508,7 +515,8 @@ def _report_comparison(cmp: Comparison) -> None:
           f"K eps scale (K = {d['k']}, eps = {d['eps']:.3g})", file=sys.stderr)
     if cmp.worst:
         worst = max(cmp.worst.items(), key=lambda kv: kv[1])
-        print(f"  largest |port - reference| / bound: {worst[1]:.3g} ({worst[0]})",
+        print(f"  largest |port - reference| / bound (upper estimate): {worst[1]:.3g} "
+              f"({worst[0]})",
               file=sys.stderr)
     for dis in cmp.kept[:20]:
         print(f"  row {dis.row}: {dis.output}: reference {dis.reference!r}, port "
@@ -551,11 +559,11 @@ def _run(args: argparse.Namespace) -> Summary:
                 vals = ch.values.tolist()
                 nan_rows = np.flatnonzero(np.isnan(ch.values).any(axis=1)) \
                     if ch.values.size else []
-                for i in nan_rows:
-                    vals[i] = fmt(vals[i])
-                if args.digits is not None:
-                    for i in range(len(vals)):
+                if args.digits is None:
+                    for i in nan_rows:
                         vals[i] = fmt(vals[i])
+                else:
+                    vals = [fmt(v) for v in vals]
                 names = [_STATUS_NAMES[s] for s in ch.status.tolist()]
                 for i in ch.ragged:  # keep the columns aligned; extra fields are in the note
                     rows[i] = (rows[i] + [""] * width)[:width]

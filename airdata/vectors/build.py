@@ -8,6 +8,7 @@
     schema/function-<function>-v1.schema.json
     c/ad_vec_common.h, c/ad_vec_<function>.h, c/ad_vectors.h   C99 headers
     CHANGELOG.md                           the suite's version history and policy
+    README.md                              the layout and fields of a suite
 
 Everything is a pure function of the installed reference and the profile: building
 twice gives byte-identical files.  Case ids are the first 12 hex digits of the SHA-256
@@ -354,6 +355,7 @@ def suite_files(profile: Profile | str | None = None,
     others["c/ad_vectors.h"] = render_umbrella_header(
         [d["function"] for d in docs], SUITE_VERSION).encode("ascii")
     others["CHANGELOG.md"] = history.changelog_text().encode("utf-8")
+    others["README.md"] = history.readme_text(K, prof.name).encode("utf-8")
     files.update(others)
     manifest = {
         "schema": schema_path_of_manifest(),
@@ -377,7 +379,8 @@ def suite_files(profile: Profile | str | None = None,
     return files
 
 
-def build_suite(out_dir: str | Path, profile: Profile | str | None = None) -> dict[str, Any]:
+def build_suite(out_dir: str | Path, profile: Profile | str | None = None,
+                specs: tuple[FunctionSpec, ...] = CATALOGUE) -> dict[str, Any]:
     """Write a complete suite under ``out_dir``; returns the manifest's totals.
 
     Files of an earlier suite that the new one does not contain are left alone only
@@ -385,7 +388,7 @@ def build_suite(out_dir: str | Path, profile: Profile | str | None = None) -> di
     files are removed so the directory holds exactly one suite.
     """
     out = Path(out_dir)
-    files = suite_files(profile)
+    files = suite_files(profile, specs)
     for sub, pattern in (("functions", "*.json"), ("schema", "*.json"), ("c", "*.h")):
         d = out / sub
         if d.is_dir():

@@ -580,7 +580,7 @@ def _mk_catalogue() -> tuple[FunctionSpec, ...]:
     A = ARGS
     s = _single
     return (
-        FunctionSpec("atmosphere", ("ATM-2", "ATM-3", "ATM-4", "ATM-5", "ATM-6"),
+        FunctionSpec("atmosphere", ("ATM-1", "ATM-2", "ATM-3", "ATM-4", "ATM-5", "ATM-6"),
                      "Standard atmosphere state at geopotential altitude h, "
                      "optionally off-standard by dT",
                      (A["h"], A["dT"]),
@@ -597,7 +597,7 @@ def _mk_catalogue() -> tuple[FunctionSpec, ...]:
         FunctionSpec("pressure_altitude", ("ALT-1",),
                      "Pressure altitude of static pressure ps", (A["ps"],), (("h", "m"),),
                      s(airdata.pressure_altitude, "h", ["ps"]), (1000,)),
-        FunctionSpec("pressure_at_altitude", ("ATM-3",),
+        FunctionSpec("pressure_at_altitude", ("ATM-1", "ATM-3"),
                      "Standard static pressure at pressure altitude h", (A["h"],),
                      (("ps", "Pa"),), s(airdata.pressure_at_altitude, "ps", ["h"]), (1000,)),
         FunctionSpec("baro_corrected_altitude", ("ALT-2",),

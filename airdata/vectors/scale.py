@@ -50,7 +50,8 @@ from ..status import Status
 from .catalogue import FunctionSpec, evaluate
 
 __all__ = ["K", "EPS_BINARY64", "EPS_BINARY32", "STEPS", "condition_scale",
-           "round_scale", "binary32_check", "TOLERANCE_RULE", "BINARY32_RULE"]
+           "round_scale", "binary32_check", "binary32_skip_status", "TOLERANCE_RULE",
+           "BINARY32_RULE"]
 
 F64 = NDArray[np.float64]
 
@@ -154,3 +155,11 @@ def binary32_check(spec: FunctionSpec, x: dict[str, F64], y: dict[str, F64],
             lenient |= evaluate(spec, moved, profile)[1] != status
     return ["skip" if a else ("lenient" if b else "full")
             for a, b in zip(abnormal.tolist(), lenient.tolist(), strict=True)]
+
+
+def binary32_skip_status(spec: FunctionSpec, x: dict[str, F64], status: NDArray[np.int8],
+                         profile: Profile) -> NDArray[np.bool_]:
+    """True where a binary32 check does not compare the status (check level not "full")."""
+    y = _outputs(spec, x, profile)
+    return np.array([c != "full" for c in binary32_check(spec, x, y, status, profile)],
+                    dtype=bool)
