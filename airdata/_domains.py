@@ -13,12 +13,25 @@ from ._inputs import Domain
 from .profiles import Profile
 
 __all__ = [
-    "MACH_MAX", "MACH", "SPEED", "TEMPERATURE", "DELTA_T", "RECOVERY", "IMPACT_PRESSURE",
+    "DERIVED_SLACK", "derived_limit", "MACH_MAX", "MACH", "SPEED", "TEMPERATURE", "DELTA_T",
+    "RECOVERY", "IMPACT_PRESSURE",
     "ELEVATION", "altitude", "pressure", "geometric", "setting",
 ]
 
 #: Highest Mach number of every airspeed function (input or derived).
 MACH_MAX = 10.0
+
+#: Relative slack of the checks on *derived* quantities (a Mach number or pressure
+#: ratio computed from the inputs): 8 units of binary64 roundoff, so that the exact end
+#: of a range reached through a rounded conversion (for example
+#: mach_from_tas(tas_from_mach(10, sat), sat)) is not refused.  Inputs themselves are
+#: checked against their ranges exactly.
+DERIVED_SLACK = 8.0 * 2.0**-52
+
+
+def derived_limit(hi: float) -> float:
+    """The upper limit ``hi`` of a derived quantity widened by ``DERIVED_SLACK``."""
+    return hi * (1.0 + DERIVED_SLACK)
 
 MACH = Domain(0.0, MACH_MAX, "", "nonnegative", 0.5)
 #: Calibrated, equivalent and true airspeed.

@@ -13,7 +13,7 @@ from . import _domains as dom
 from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
 from .altimetry import altitude_of_density, altitude_of_pressure, density_range
 from .atmosphere import layer_table
-from .pitot import RATIO_MAX, mach_from_ratio
+from .pitot import RATIO_LIMIT, RATIO_MAX, mach_from_ratio
 from .profiles import GAMMA, Profile, get_profile
 from .status import Status
 
@@ -161,9 +161,9 @@ def air_data(
     zeroed = (qc < 0.0) & ~args.bad
     qc = np.maximum(qc, 0.0)
     x = qc / p
-    args.flag(x > RATIO_MAX, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
+    args.flag(x > RATIO_LIMIT, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     x0 = qc / prof.p0
-    args.flag(x0 > RATIO_MAX, Status.OUT_OF_RANGE, "qc/p0", x0,
+    args.flag(x0 > RATIO_LIMIT, Status.OUT_OF_RANGE, "qc/p0", x0,
               f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     x = np.where(args.bad, 0.0, x)
     x0 = np.where(args.bad, 0.0, x0)

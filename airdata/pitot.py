@@ -78,6 +78,10 @@ def ratio_from_mach(m: F64) -> F64:
 RATIO_SONIC = float(ratio_from_mach(np.array([1.0]))[0])
 #: qc/ps at the highest Mach number of the model.
 RATIO_MAX = float(ratio_from_mach(np.array([dom.MACH_MAX]))[0])
+#: RATIO_MAX as the limit of a derived qc/ps (see ``_domains.DERIVED_SLACK``).
+RATIO_LIMIT = dom.derived_limit(RATIO_MAX)
+#: MACH_MAX as the limit of a derived Mach number.
+MACH_LIMIT = dom.derived_limit(dom.MACH_MAX)
 
 
 def supersonic_mach_squared(r: F64) -> F64:
@@ -199,7 +203,7 @@ def mach_from_impact_pressure(
     prof = get_profile(profile)
     args = Inputs(strict, qc=(qc, dom.IMPACT_PRESSURE), ps=(ps, dom.pressure(prof)))
     x = args["qc"] / args["ps"]
-    over = x > RATIO_MAX
+    over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     return args.finish(mach_from_ratio(np.where(over, 0.0, x)))
 
@@ -242,7 +246,7 @@ def impact_pressure_from_cas(
     prof = get_profile(profile)
     args = Inputs(strict, cas=(cas, dom.SPEED))
     m = args["cas"] / prof.a0
-    over = m > dom.MACH_MAX
+    over = m > MACH_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "cas", args["cas"],
               f"[0, {dom.MACH_MAX * prof.a0!r}] m/s")
     return args.finish(prof.p0 * ratio_from_mach(np.where(over, 0.0, m)))
@@ -286,7 +290,7 @@ def cas_from_impact_pressure(
     prof = get_profile(profile)
     args = Inputs(strict, qc=(qc, dom.IMPACT_PRESSURE))
     x = args["qc"] / prof.p0
-    over = x > RATIO_MAX
+    over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc", args["qc"],
               f"[0, {RATIO_MAX * prof.p0!r}] Pa (CAS <= 10 a0)")
     return args.finish(prof.a0 * mach_from_ratio(np.where(over, 0.0, x)))

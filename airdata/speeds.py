@@ -10,7 +10,7 @@ import numpy as np
 
 from . import _domains as dom
 from ._inputs import ArrayLike, FloatOrArray, Inputs
-from .pitot import RATIO_MAX, mach_from_ratio, ratio_from_mach
+from .pitot import MACH_LIMIT, RATIO_LIMIT, RATIO_MAX, mach_from_ratio, ratio_from_mach
 from .profiles import GAMMA, Profile, get_profile
 from .status import Status
 
@@ -68,7 +68,7 @@ def cas_from_mach(
     prof = get_profile(profile)
     args = Inputs(strict, mach=(mach, dom.MACH), ps=(ps, dom.pressure(prof)))
     x = args["ps"] * ratio_from_mach(args["mach"]) / prof.p0
-    over = x > RATIO_MAX
+    over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     return args.finish(prof.a0 * mach_from_ratio(np.where(over, 0.0, x)))
 
@@ -115,11 +115,11 @@ def mach_from_cas(
     prof = get_profile(profile)
     args = Inputs(strict, cas=(cas, dom.SPEED), ps=(ps, dom.pressure(prof)))
     m0 = args["cas"] / prof.a0
-    over0 = m0 > dom.MACH_MAX
+    over0 = m0 > MACH_LIMIT
     args.flag(over0, Status.OUT_OF_RANGE, "cas", args["cas"],
               f"[0, {dom.MACH_MAX * prof.a0!r}] m/s")
     x = prof.p0 * ratio_from_mach(np.where(over0, 0.0, m0)) / args["ps"]
-    over = x > RATIO_MAX
+    over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     return args.finish(mach_from_ratio(np.where(over, 0.0, x)))
 
@@ -208,7 +208,7 @@ def mach_from_eas(
     prof = get_profile(profile)
     args = Inputs(strict, eas=(eas, dom.SPEED), ps=(ps, dom.pressure(prof)))
     m = args["eas"] / (prof.a0 * np.sqrt(args["ps"] / prof.p0))
-    args.flag(m > dom.MACH_MAX, Status.OUT_OF_RANGE, "Mach", m, "[0, 10.0]")
+    args.flag(m > MACH_LIMIT, Status.OUT_OF_RANGE, "Mach", m, "[0, 10.0]")
     return args.finish(m)
 
 
@@ -296,7 +296,7 @@ def mach_from_tas(
     prof = get_profile(profile)
     args = Inputs(strict, tas=(tas, dom.SPEED), sat=(sat, dom.TEMPERATURE))
     m = args["tas"] / np.sqrt((GAMMA * prof.R) * args["sat"])
-    args.flag(m > dom.MACH_MAX, Status.OUT_OF_RANGE, "Mach", m, "[0, 10.0]")
+    args.flag(m > MACH_LIMIT, Status.OUT_OF_RANGE, "Mach", m, "[0, 10.0]")
     return args.finish(m)
 
 
