@@ -84,7 +84,7 @@ def _suite_docs() -> list[tuple[Path, Any]]:
     return out
 
 
-def test_checked_in_suite_is_valid_under_jsonschema() -> None:
+def test_checked_in_suite_is_valid_under_jsonschema_and_the_builtin_validator() -> None:
     docs = _suite_docs()
     assert len(docs) == len(CATALOGUE) + 1
     for path, doc in docs:
@@ -92,15 +92,10 @@ def test_checked_in_suite_is_valid_under_jsonschema() -> None:
         jsonschema.Draft202012Validator.check_schema(sch)
         errors = list(jsonschema.Draft202012Validator(sch).iter_errors(doc))
         assert not errors, f"{path}: {errors[0].message}"
+        assert schema.validate(doc, sch) == [], path
         # The schemas are closed: every object schema says additionalProperties false.
         text = json.dumps(sch)
         assert text.count('"type": "object"') == text.count('"additionalProperties": false')
-
-
-def test_builtin_validator_agrees_on_checked_in_suite() -> None:
-    for path, doc in _suite_docs():
-        sch = json.loads((SUITE / doc["schema"]).read_text())
-        assert schema.validate(doc, sch) == [], path
 
 
 def _mutations(doc: dict[str, Any]) -> list[tuple[str, dict[str, Any]]]:
@@ -443,6 +438,18 @@ def test_verify_reports_malformed_and_oversize_files(tmp_path: Path) -> None:
     assert any("more than the limit of 10000" in q.message for q in probs)
 
 
+def test_verify_reports_a_broken_manifest(tmp_path: Path) -> None:
+    root = _mini(tmp_path)
+    m = json.loads((root / "manifest.json").read_text())
+    del m["profile"]
+    (root / "manifest.json").write_text(json.dumps(m))
+    probs = [str(p) for p in verify_suite(root).problems]
+    assert probs == ["manifest.json: schema violation: /: missing required property 'profile'"]
+    (root / "manifest.json").write_text("{")
+    probs = [str(p) for p in verify_suite(root).problems]
+    assert len(probs) == 1 and "manifest.json: malformed JSON at line 1" in probs[0]
+
+
 def test_verify_reports_stray_and_missing_files(tmp_path: Path) -> None:
     root = _mini(tmp_path)
     (root / "functions" / "extra.json").write_text("{}")
@@ -559,3 +566,17 @@ def test_equation_ids_exist_in_the_equations_document() -> None:
     ids = set(re.findall(r"\b[A-Z]{3}-[0-9]+\b", doc.read_text()))
     for spec in CATALOGUE:
         assert set(spec.equations) <= ids, spec.name
+
+
+def test_tags_agree_with_statuses() -> None:
+    for spec in CATALOGUE:
+        for c in _cases(spec.name):
+            bad = c["status"] not in (0, 4)
+            assert ("invalid" in c["tags"]) == bad, (spec.name, c["id"])
+            assert ("zeroed" in c["tags"]) == (c["status"] == 4), (spec.name, c["id"])
+            assert ("out-of-range" in c["tags"]) == (c["status"] == 2), (spec.name, c["id"])
+            nan_out = [_val(v) != _val(v) for v in c["expected"].values()]
+            if bad:
+                assert all(nan_out) and all(_val(v) != _val(v) for v in c["scale"].values())
+            elif spec.name != "air_data":
+                assert not any(nan_out)

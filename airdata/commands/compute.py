@@ -22,6 +22,7 @@ from .quantities import (
     add_output_units,
     add_profile,
     allow_negative_values,
+    caution,
     domain_failure,
     format_value,
     output_units,
@@ -62,11 +63,9 @@ Exit status: 0 done, 1 a reading outside the model, 2 usage error (e.g. a bad un
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``compute`` sub-command."""
-    from ..cli import CAUTION
-
     p = subparsers.add_parser(
         COMMAND, help="air data from one set of readings (ps, pt, TAT)",
-        description=DESCRIPTION, epilog=CAUTION,
+        description=DESCRIPTION, epilog=caution(),
         formatter_class=argparse.RawDescriptionHelpFormatter)
     allow_negative_values(p)
     p.add_argument("--ps", type=quantity_type("pressure"), required=True, metavar="P",

@@ -33,6 +33,7 @@ from .quantities import (
     add_output_units,
     add_profile,
     allow_negative_values,
+    caution,
     difference_type,
     domain_failure,
     format_value,
@@ -63,11 +64,9 @@ Exit status: 0 done, 1 a value outside the model, 2 usage error.
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``convert`` sub-command."""
-    from ..cli import CAUTION
-
     p = subparsers.add_parser(
         COMMAND, help="convert between CAS, EAS, TAS and Mach",
-        description=DESCRIPTION, epilog=CAUTION,
+        description=DESCRIPTION, epilog=caution(),
         formatter_class=argparse.RawDescriptionHelpFormatter)
     allow_negative_values(p)
     speed = p.add_mutually_exclusive_group(required=True)

@@ -25,7 +25,7 @@ from ..status import DomainError
 __all__ = [
     "Quantity", "parse_quantity", "quantity_type", "difference_type", "add_output_units",
     "output_units", "add_profile", "allow_negative_values", "fail", "domain_failure",
-    "DIMENSION_WORDS", "DECIMALS", "format_value", "render", "si_units",
+    "DIMENSION_WORDS", "DECIMALS", "format_value", "render", "si_units", "caution",
 ]
 
 #: Human words for the dimensions of :mod:`airdata.units`.
@@ -240,3 +240,12 @@ def si_units(dim: str) -> str:
     """The SI unit of dimension ``dim``."""
     return {"length": "m", "speed": "m/s", "pressure": "Pa", "temperature": "K",
             "dimensionless": "1", "density": "kg/m3"}[dim]
+
+
+def caution() -> str:
+    """``airdata.cli.CAUTION`` wrapped for a --help epilog shown as written."""
+    import textwrap
+
+    from ..cli import CAUTION
+
+    return textwrap.fill(CAUTION, 79)

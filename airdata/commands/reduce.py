@@ -69,6 +69,7 @@ from .quantities import (
     add_output_units,
     add_profile,
     allow_negative_values,
+    caution,
     fail,
     output_units,
     quantity_type,
@@ -175,11 +176,9 @@ def _assignment(text: str) -> tuple[str, str]:
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``reduce`` sub-command."""
-    from ..cli import CAUTION
-
     p = subparsers.add_parser(
         COMMAND, help="run the air-data chain over a recorded CSV series",
-        description=DESCRIPTION, epilog=CAUTION,
+        description=DESCRIPTION, epilog=caution(),
         formatter_class=argparse.RawDescriptionHelpFormatter)
     allow_negative_values(p)
     p.add_argument("input", metavar="IN.csv", help='recorded series ("-": standard input)')

@@ -24,6 +24,7 @@ from .quantities import (
     add_output_units,
     add_profile,
     allow_negative_values,
+    caution,
     difference_type,
     domain_failure,
     format_value,
@@ -54,11 +55,9 @@ Exit status: 0 done, 1 an altitude outside the model, 2 usage error.
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``table`` sub-command."""
-    from ..cli import CAUTION
-
     p = subparsers.add_parser(
         COMMAND, help="standard-atmosphere table over an altitude range",
-        description=DESCRIPTION, epilog=CAUTION,
+        description=DESCRIPTION, epilog=caution(),
         formatter_class=argparse.RawDescriptionHelpFormatter)
     allow_negative_values(p)
     p.add_argument("--from", dest="start", type=quantity_type("length"), metavar="H",

@@ -233,9 +233,11 @@ def compute_cases(spec: FunctionSpec, profile: Profile) -> FunctionCases:
     tags = []
     mach = inputs.get("mach")
     for i, s in enumerate(seeds):
-        t = set(s.tags) - {"invalid", "out-of-range"}
+        t = set(s.tags) - {"invalid", "out-of-range", "zeroed"}
         if status[i] not in (Status.OK, Status.IMPACT_PRESSURE_ZEROED):
             t.add("invalid")
+        if status[i] == Status.IMPACT_PRESSURE_ZEROED:
+            t.add("zeroed")
         if status[i] == Status.OUT_OF_RANGE:
             t.add("out-of-range")
         if mach is not None and mach[i] > 1.0 and status[i] == Status.OK:

@@ -31,8 +31,10 @@ int ad_i_layer_of_altitude(ad_real h)
 
 /*
  * ATM-3: p = pb exp(-(k log1p(m dh) + c dh)), one expression for both layer kinds
- * (the unused term adds an exact zero).  log1p keeps m dh (|m dh| < 0.2) accurate;
- * relative error about (|k log1p(m dh) + c dh| + 2) ulp, below 20 ulp over the model.
+ * (the unused term adds an exact zero).  log1p keeps m dh (|m dh| < 0.25) accurate.
+ * Relative error about (2 |e| + 3) ulp for the exponent e = k log1p(m dh) + c dh,
+ * |e| <= 3 over the model; the condition scale of the result (|dp/dh h| is about
+ * |e| p or more) absorbs the |e| part.
  */
 ad_real ad_i_standard_pressure(ad_real h, int i)
 {

@@ -48,6 +48,10 @@ static ad_real ad_phi(ad_real a, ad_real u)
  * clipped to the bracket; AD_NEWTON_STEPS Newton steps, each replaced by bisection
  * when it leaves the bracket; result phi(u_N), which damps the error of u_N by
  * phi'(u) <= 0.42: within about 1 ulp.  Fixed loop bound, no early exit.
+ * Binary32 caveat (the same algorithm as the reference): for the first few binary32
+ * ratios above the sonic ratio the root rounds to the bracket end u = 1, Newton
+ * candidates land just below it, every step falls back to bisection and M is off by
+ * up to about 15 ulp (tests/test_cport_diff.py, strict xfail).
  */
 static ad_real ad_supersonic_mach_squared(ad_real r)
 {
