@@ -617,16 +617,6 @@ def measure(case_id: str, n: int) -> dict[str, Result]:
 #: Measured with tools/accuracy_table.py --points 100000 --only atmosphere; the worst
 #: points are in REGRESSION_POINTS.  Remove an entry when the library is fixed (strict).
 KNOWN_FAILURES: dict[tuple[str, str], str] = {
-    ("atmosphere[icao]", "kinematic_viscosity"):
-        "library: cse 3.18 (3.4 ulps) at h=705.2488262752959, dT=0 "
-        "(nu = mu/rho compounds the rounding of mu and of rho)",
-    ("atmosphere[icao]", "density"):
-        "library: cse 2.02 (2.9 ulps) at h=1052.2537517960327, dT=-24.830818009547357",
-    ("atmosphere[us1976]", "kinematic_viscosity"):
-        "library: cse 2.82 (3.2 ulps) at h=971.8087400893482, dT=0 (nu = mu/rho)",
-    ("atmosphere[us1976]", "dynamic_viscosity"):
-        "library: cse 2.02 (2.4 ulps) at h=2506.7841443679417, dT=0 (Sutherland's law: "
-        "five roundings plus the rounded temperature)",
 }
 
 
