@@ -7,12 +7,15 @@ Condition scale (../shared/conventions.md, section 3), per case and output::
 The derivatives are one-sided differences in binary64 on the reference, taken on both
 sides of x_i with relative steps 2**-20 and 2**-34, keeping the largest magnitude
 among the sides whose point is valid.  At a range end this is the inward side only;
-at a seam (a layer base, M = 1, a zeroed impact pressure) it is the larger of the two
-one-sided slopes; the small step catches slopes that change fast (square roots near
+at a seam (a layer base, M = 1, a zeroed impact pressure), and within a step of one,
+it is the larger of the two sides' slopes (conservative: a binary32 input may round
+onto the other side); the small step catches slopes that change fast (square roots near
 zero).  The rounding noise of a difference is at most about 2**-16 of the scale, and
 the truncation error of the large step about 2**-20 relative, so 3 significant
 digits, which is all that is stored, are right.  Inputs that are zero contribute
-nothing (x_i = 0); integer flags have no derivative.
+nothing (x_i = 0); integer flags have no derivative.  Where a derivative is infinite
+(the Mach number of air_data at qc = 0, a square root at zero) the scale is the finite
+slope of the small step: large, but not a principled bound.
 
 Acceptance bound of a port: ``|got - expected| <= K * eps * scale`` with eps = 2**-52
 for a binary64 port and 2**-23 for a binary32 port; NaN is expected exactly where the
