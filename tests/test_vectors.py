@@ -157,11 +157,14 @@ def test_builtin_validator_agrees_with_jsonschema_on_crafted_documents() -> None
                      ("bad sha", lambda d: d["functions"][0].update(sha256="00")),
                      ("schema version", lambda d: d.update(schema_version=2)),
                      ("profile extra", lambda d: d["profile"].update(x=1)),
-                     ("semver", lambda d: d.update(suite_version="1.0"))]:
+                     ("semver", lambda d: d.update(suite_version="1.0")),
+                     ("escape", lambda d: d["files"][0].update(path="../../etc/passwd")),
+                     ("absolute", lambda d: d["files"][0].update(path="/etc/passwd"))]:
         d = copy.deepcopy(m)
         f(d)
-        assert (schema.validate(d, msch) == []) == jsonschema.Draft202012Validator(msch).is_valid(
-            d), label
+        theirs = jsonschema.Draft202012Validator(msch).is_valid(d)
+        assert (schema.validate(d, msch) == []) == theirs, label
+        assert theirs == (label == "ok"), label
 
 
 def test_validator_refuses_unknown_keywords() -> None:
