@@ -29,8 +29,9 @@ package version that generated it (recorded in the manifest as `generator`).
 
 - **Major**: an expected value of an existing case moves by more than its tolerance
   (k * eps_binary64 * scale), an expected status changes, a case or a function is
-  removed, or the file format (schema version) changes incompatibly. A port that
-  passed the old suite may fail the new one.
+  removed, the constants profile or the tolerance rule changes, or the file format
+  (schema version) changes incompatibly. A port that passed the old suite may fail
+  the new one.
 - **Minor**: cases or functions are added; existing cases are unchanged beyond
   tolerance.
 - **Patch**: metadata only: summaries, tags, units text, scales, binary32 flags, or
