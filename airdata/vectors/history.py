@@ -14,7 +14,7 @@ ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
         "First suite: 22 catalogue functions (every public function of airdata, "
         "air_data with and without an altimeter setting), constants profile icao.",
         "Format version 1: one JSON file per function, numbers as [shortest decimal, "
-        "C99 hex float], per-case condition scale, status and binary32 status flag; "
+        "C99 hex float], per-case condition scale, status and binary32 check level; "
         "JSON Schema (draft 2020-12) per file; C99 headers of the same cases.",
         "Acceptance bound k * eps * scale with k = 8.",
     )),
@@ -34,7 +34,7 @@ package version that generated it (recorded in the manifest as `generator`).
   the new one.
 - **Minor**: cases or functions are added; existing cases are unchanged beyond
   tolerance.
-- **Patch**: metadata only: summaries, tags, units text, scales, binary32 flags, or
+- **Patch**: metadata only: summaries, tags, units text, scales, binary32 check levels, or
   expected values that move by less than their tolerance.
 
 `airdata vectors diff OLD NEW` reports, per function, the cases added, removed and
