@@ -86,19 +86,35 @@ def test_bundled_port_passes_every_vector_in_binary64(tmp_path: Path) -> None:
     assert "22 functions: all passed" in r.stdout
 
 
-@needs_cc
-@needs_port
+#: Functions the bundled port fails in binary32 (see the xfail reason below).
+KNOWN_BINARY32 = {"mach_from_impact_pressure", "air_data"}
+
+
+@pytest.fixture(scope="module")
+def run32(tmp_path_factory: pytest.TempPathFactory) -> subprocess.CompletedProcess[str]:
+    """The runner built with the bundled port in binary32, run once."""
+    if CC is None or not PORT:
+        pytest.skip("no C compiler or no port sources")
+    exe = tmp_path_factory.mktemp("r32") / "runner32"
+    _compile(exe, [RUNNER, *PORT], "-DAIRDATA_SINGLE")
+    return _run(exe)
+
+
+def test_bundled_port_binary32_passes_all_but_known_functions(
+        run32: subprocess.CompletedProcess[str]) -> None:
+    rows = _summary(run32.stdout)
+    assert set(rows) == {s.name for s in CATALOGUE}
+    bad = {name for name, (_, failed) in rows.items() if failed}
+    assert bad <= KNOWN_BINARY32, run32.stdout[-3000:]
+
+
 @pytest.mark.xfail(strict=True, reason=(
-    "bundled port, binary32: mach_from_impact_pressure at qc/ps = RATIO_SONIC (M = 1) gives "
+    "bundled port, binary32: mach_from_impact_pressure near qc/ps = RATIO_SONIC (M = 1) gives "
     "0x1.00001ep+0 (30 binary32 ulp), 1.04 of the k = 8 bound; air_data dynamic_pressure "
     "there 1.09 of the bound"))
-def test_bundled_port_passes_every_vector_in_binary32(tmp_path: Path) -> None:
-    exe = tmp_path / "runner32"
-    _compile(exe, [RUNNER, *PORT], "-DAIRDATA_SINGLE")
-    r = _run(exe)
-    rows = _summary(r.stdout)
-    assert set(rows) == {s.name for s in CATALOGUE}
-    assert r.returncode == 0, r.stdout[-3000:]
+def test_bundled_port_passes_every_vector_in_binary32(
+        run32: subprocess.CompletedProcess[str]) -> None:
+    assert run32.returncode == 0, run32.stdout[-3000:]
 
 
 @needs_cc

@@ -14,7 +14,7 @@ ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
         "First suite: 22 catalogue functions (every public function of airdata, "
         "air_data with and without an altimeter setting), constants profile icao.",
         "Format version 1: one JSON file per function, numbers as [shortest decimal, "
-        "C99 hex float], per-case condition scale, status and binary32 status flag; "
+        "C99 hex float], per-case condition scale, status and binary32 check level; "
         "JSON Schema (draft 2020-12) per file; C99 headers of the same cases.",
         "Acceptance bound k * eps * scale with k = 8.",
     )),
@@ -29,11 +29,12 @@ package version that generated it (recorded in the manifest as `generator`).
 
 - **Major**: an expected value of an existing case moves by more than its tolerance
   (k * eps_binary64 * scale), an expected status changes, a case or a function is
-  removed, or the file format (schema version) changes incompatibly. A port that
-  passed the old suite may fail the new one.
+  removed, the constants profile or the tolerance rule changes, or the file format
+  (schema version) changes incompatibly. A port that passed the old suite may fail
+  the new one.
 - **Minor**: cases or functions are added; existing cases are unchanged beyond
   tolerance.
-- **Patch**: metadata only: summaries, tags, units text, scales, binary32 flags, or
+- **Patch**: metadata only: summaries, tags, units text, scales, binary32 check levels, or
   expected values that move by less than their tolerance.
 
 `airdata vectors diff OLD NEW` reports, per function, the cases added, removed and

@@ -7,12 +7,15 @@ Condition scale (../shared/conventions.md, section 3), per case and output::
 The derivatives are one-sided differences in binary64 on the reference, taken on both
 sides of x_i with relative steps 2**-20 and 2**-34, keeping the largest magnitude
 among the sides whose point is valid.  At a range end this is the inward side only;
-at a seam (a layer base, M = 1, a zeroed impact pressure) it is the larger of the two
-one-sided slopes; the small step catches slopes that change fast (square roots near
+at a seam (a layer base, M = 1, a zeroed impact pressure), and within a step of one,
+it is the larger of the two sides' slopes (conservative: a binary32 input may round
+onto the other side); the small step catches slopes that change fast (square roots near
 zero).  The rounding noise of a difference is at most about 2**-16 of the scale, and
 the truncation error of the large step about 2**-20 relative, so 3 significant
 digits, which is all that is stored, are right.  Inputs that are zero contribute
-nothing (x_i = 0); integer flags have no derivative.
+nothing (x_i = 0); integer flags have no derivative.  Where a derivative is infinite
+(the Mach number of air_data at qc = 0, a square root at zero) the scale is the finite
+slope of the small step: large, but not a principled bound.
 
 Acceptance bound of a port: ``|got - expected| <= K * eps * scale`` with eps = 2**-52
 for a binary64 port and 2**-23 for a binary32 port; NaN is expected exactly where the
@@ -31,7 +34,10 @@ how a binary32 check treats it:
     the other side of a binary32-rounded range end of its own, or the reference status
     at the binary32-rounded inputs differs, or it differs when one of them is moved
     alone by a relative 2**-19 (16 ulp of binary32) up or down without crossing its own
-    range end (a derived limit nearby).  The status is not compared, and NaN on either
+    range end (a derived limit nearby); a zero input whose range straddles zero moves by
+    2**-19 of the larger magnitude of its range ends.  Inputs that the binary32 range
+    accepts but the binary64 range does not (rounded past an end) are evaluated on that
+    end, as a binary32 port sees them.  The status is not compared, and NaN on either
     side is accepted; two numbers must still agree within the bound.
 ``"full"``
     Everything else: status and outputs are compared as for binary64.
@@ -76,8 +82,10 @@ BINARY32_RULE = (
     "binary32_check: 'skip' when an input or expected output is finite, nonzero and outside "
     "the normal binary32 range; 'lenient' (status not compared, NaN on either side accepted, "
     "numbers within the bound) when a binary32-rounded input crosses its own binary32-rounded "
-    "range end, or the reference status changes at the binary32-rounded inputs or when one "
-    "of them moves by a relative 2**-19 without crossing its own range end; else 'full'"
+    "range end, or the reference status changes at the binary32-rounded inputs (put back on "
+    "a range end they were rounded past) or when one of them moves by a relative 2**-19 "
+    "(2**-19 of its range for a zero in a range around zero) without crossing its own range "
+    "end; else 'full'"
 )
 
 
@@ -127,34 +135,55 @@ def round_scale(s: F64) -> F64:
                     dtype=np.float64)
 
 
+def _domain32(d: Domain) -> Domain:
+    """``d`` with its ends rounded to binary32, as a binary32 port holds them."""
+    with np.errstate(over="ignore"):
+        return Domain(float(np.float32(d.lo)), float(np.float32(d.hi)), d.unit, d.sign, d.safe)
+
+
 def binary32_check(spec: FunctionSpec, x: dict[str, F64], y: dict[str, F64],
                    status: NDArray[np.int8], profile: Profile) -> list[str]:
-    """The ``binary32_check`` level of every case (see the module docstring)."""
-    real = {a.name for a in spec.real_args}
+    """The ``binary32_check`` level of every case (see the module docstring).
+
+    The reference is evaluated at the binary32-rounded inputs as a binary32 port sees
+    them: an input that its binary32 range accepts but the binary64 range does not (it
+    was rounded past an end) is put back on that end.
+    """
+    real = [a for a in spec.real_args if a.domain is not None]
     n = status.shape[0]
     abnormal = np.zeros(n, dtype=bool)
     with np.errstate(over="ignore", invalid="ignore"):
-        for v in [x[k] for k in real] + [y[o] for o, _ in spec.outputs]:
-            a = np.abs(v)
-            abnormal |= np.isfinite(v) & (v != 0.0) & ((a < FLT_MIN) | (a > FLT_MAX))
-        x32 = {k: (v.astype(np.float32).astype(np.float64) if k in real else v)
-               for k, v in x.items()}
-    lenient = evaluate(spec, x32, profile)[1] != status
-    for arg in spec.real_args:
-        assert arg.domain is not None
-        d = arg.domain(profile)
-        with np.errstate(over="ignore"):
-            d32 = Domain(float(np.float32(d.lo)), float(np.float32(d.hi)), d.unit, d.sign,
-                         d.safe)
-        lenient |= d32.classify(x32[arg.name]) != d.classify(x[arg.name])
-        own32 = d.classify(x32[arg.name])
+        for v in [x[a.name] for a in real] + [y[o] for o, _ in spec.outputs]:
+            mag = np.abs(v)
+            abnormal |= np.isfinite(v) & (v != 0.0) & ((mag < FLT_MIN) | (mag > FLT_MAX))
+        x32 = dict(x)
+        for a in real:
+            x32[a.name] = x[a.name].astype(np.float32).astype(np.float64)
+    doms = {a.name: (a.domain(profile), _domain32(a.domain(profile))) for a in real}
+
+    def as_seen(v: F64, name: str) -> F64:
+        d, d32 = doms[name]
+        back = (d32.classify(v) == Status.OK) & (d.classify(v) != Status.OK)
+        return np.where(back, np.clip(v, d.lo, d.hi), v)
+
+    seen = dict(x32)
+    for a in real:
+        seen[a.name] = as_seen(x32[a.name], a.name)
+    lenient = evaluate(spec, seen, profile)[1] != status
+    for a in real:
+        d, d32 = doms[a.name]
+        lenient |= d32.classify(x32[a.name]) != d.classify(x[a.name])
+        own32 = d32.classify(x32[a.name])
         for sign in (1.0, -1.0):
-            moved = dict(x32)
-            v = x32[arg.name] * (1.0 + sign * BINARY32_MOVE)
-            moved[arg.name] = np.where(d.classify(v) == own32, v, x32[arg.name])
+            moved = dict(seen)
+            v = x32[a.name] * (1.0 + sign * BINARY32_MOVE)
+            if d.sign == "any":  # zero is no boundary here: move it by a part of the range
+                v = np.where(v == 0.0, sign * BINARY32_MOVE * max(abs(d.lo), abs(d.hi)), v)
+            keep = d32.classify(v) == own32
+            moved[a.name] = np.where(keep, as_seen(v, a.name), seen[a.name])
             lenient |= evaluate(spec, moved, profile)[1] != status
-    return ["skip" if a else ("lenient" if b else "full")
-            for a, b in zip(abnormal.tolist(), lenient.tolist(), strict=True)]
+    return ["skip" if p else ("lenient" if q else "full")
+            for p, q in zip(abnormal.tolist(), lenient.tolist(), strict=True)]
 
 
 def binary32_skip_status(spec: FunctionSpec, x: dict[str, F64], status: NDArray[np.int8],

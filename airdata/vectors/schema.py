@@ -132,7 +132,9 @@ def function_schema(spec: FunctionSpec) -> dict[str, Any]:
 def manifest_schema() -> dict[str, Any]:
     """The schema of the suite manifest."""
     file_entry = _closed({
-        "path": {"type": "string", "pattern": r"^[A-Za-z0-9_./-]+$"},
+        # Relative, no component starting with a dot (so no "..").
+        "path": {"type": "string",
+                 "pattern": r"^([A-Za-z0-9_-][A-Za-z0-9_.-]*/)*[A-Za-z0-9_-][A-Za-z0-9_.-]*$"},
         "sha256": {"type": "string", "pattern": SHA256_PATTERN},
         "bytes": {"type": "integer", "minimum": 0},
     })

@@ -44,8 +44,10 @@
 #define RUNNER_SINGLE 0
 #endif
 
-/* Failures printed per function; the rest are only counted. */
+/* Failures printed per function; the rest are only counted (-DRUNNER_MAX_REPORTS=n). */
+#ifndef RUNNER_MAX_REPORTS
 #define RUNNER_MAX_REPORTS 8
+#endif
 
 typedef struct {
     const char *name;
