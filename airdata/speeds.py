@@ -10,7 +10,7 @@ import numpy as np
 
 from . import _domains as dom
 from ._inputs import ArrayLike, FloatOrArray, Inputs
-from .pitot import MACH_LIMIT, RATIO_LIMIT, RATIO_MAX, mach_from_ratio, ratio_from_mach
+from .pitot import MACH_LIMIT, RATIO_LIMIT, RATIO_MAX, convert_mach, ratio_from_mach
 from .profiles import GAMMA, Profile, get_profile
 from .status import Status
 
@@ -59,7 +59,8 @@ def cas_from_mach(
 
     Notes
     -----
-    SPD-1: qc = ps f(M) (PIT-1), then cas = a0 f^-1(qc/p0) (PIT-2).
+    SPD-1: qc = ps f(M) (PIT-1), then cas = a0 f^-1(qc/p0) (PIT-2); below
+    M = 2^-40 the linear limit cas = a0 M sqrt(ps/p0) (``pitot.TINY_MACH``).
 
     References
     ----------
@@ -70,7 +71,8 @@ def cas_from_mach(
     x = args["ps"] * ratio_from_mach(args["mach"]) / prof.p0
     over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
-    return args.finish(prof.a0 * mach_from_ratio(np.where(over, 0.0, x)))
+    m = args["mach"]
+    return args.finish(prof.a0 * convert_mach(m, args["ps"] / prof.p0, np.where(over, 0.0, x)))
 
 
 def mach_from_cas(
@@ -106,7 +108,8 @@ def mach_from_cas(
 
     Notes
     -----
-    SPD-1 inverted: qc = p0 f(cas/a0) (PIT-1), then M = f^-1(qc/ps) (PIT-2).
+    SPD-1 inverted: qc = p0 f(cas/a0) (PIT-1), then M = f^-1(qc/ps) (PIT-2); below
+    cas/a0 = 2^-40 the linear limit M = (cas/a0) sqrt(p0/ps) (``pitot.TINY_MACH``).
 
     References
     ----------
@@ -121,7 +124,7 @@ def mach_from_cas(
     x = prof.p0 * ratio_from_mach(np.where(over0, 0.0, m0)) / args["ps"]
     over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
-    return args.finish(mach_from_ratio(np.where(over, 0.0, x)))
+    return args.finish(convert_mach(m0, prof.p0 / args["ps"], np.where(over, 0.0, x)))
 
 
 def eas_from_mach(

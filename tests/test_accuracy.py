@@ -206,7 +206,7 @@ def setting_col(c: Consts) -> Column:
     return Column(_inside(specials, c.set_lo, c.set_hi), _log_uniform(c.set_lo, c.set_hi))
 
 
-TINY = [1e-8, 1e-12, 1e-30, 1e-100]
+TINY = [1e-8, 1e-12, 2.0**-40, 1e-30, 1e-100]
 
 
 def mach_col() -> Column:
@@ -706,3 +706,20 @@ def test_cse_detects_a_twenty_ulp_error() -> None:
     for _ in range(20):  # the scale is 4|y| (q = 0.7 ps M^2): 20 ulps give cse 2.5..5
         bad = math.nextafter(bad, math.inf)
     assert oracle.condition_scaled_error(bad, ystar["v"], scale["v"]) > 2.0
+
+
+@pytest.mark.parametrize("speed", [1e-160, 1e-300, 2.0**-40 * 0.999, 2.0**-40 * 1.001])
+@pytest.mark.parametrize("ps", [1.0, 101325.0, 177000.0])
+def test_tiny_speeds_keep_their_value(speed: float, ps: float) -> None:
+    """Mach <-> CAS at tiny speeds: no underflow to 0 (linear branch below 2^-40).
+
+    Against the oracle of NACA Report 1135 eq. 44 at 50 digits, with the same cse bound.
+    """
+    a0 = airdata.ICAO.a0
+    for func, ref, arg in ((airdata.mach_from_cas, oracle.mach_from_cas, speed * a0),
+                           (airdata.cas_from_mach, oracle.cas_from_mach, speed)):
+        y = func(arg, ps)
+        ystar, scale = oracle.reference_and_scale(
+            lambda v, p, r=ref: {"value": r(v, p)}, [arg, ps])
+        assert y > 0.0
+        assert oracle.condition_scaled_error(y, ystar["value"], scale["value"]) <= CSE_BOUND
