@@ -97,7 +97,10 @@ ad_status ad_sat_from_tat(ad_real tat, ad_real mach, ad_real recovery, ad_real *
 ad_status ad_tat_from_sat(ad_real sat, ad_real mach, ad_real recovery, ad_real *tat);
 
 /* chain.c: setting is used only when use_setting != 0; noise_band as in Python
- * (default 100 Pa). */
+ * (default 100 Pa, valid 0 .. 10000 Pa).  noise_band is a configuration value, not a
+ * sensor reading: it is checked FIRST, before ps, pt, tat, recovery and setting (NaN,
+ * infinite or negative: AD_INVALID_INPUT; above 10000 Pa: AD_OUT_OF_RANGE), as the
+ * Python reference refuses it before looking at the samples. */
 ad_status ad_air_data(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
                       ad_real setting, int use_setting, ad_real noise_band,
                       ad_air_data_t *out);
