@@ -16,12 +16,9 @@ points (``airdata._cport64`` / ``airdata._cport32``).  Asserted:
   of the precision is counted at that number's size (a one-ulp change of a subnormal
   input is absolute, not relative); so is an output.
 
-Known binary32 defect (shared with the reference's algorithm, which the port mirrors):
-when qc/ps (or qc/p0) lies within a few binary32 ulps above the sonic ratio, the
-supersonic solver's Newton candidates fall just below its bracket's lower end u = 1
-(the root rounds to 1), every remaining step falls back to bisection, and the Mach
-number is off by up to about 15 binary32 ulps.  Those elements are left out of the
-binary32 value bound here and shown by a strict xfail test.
+The binary32 supersonic solver just above the sonic ratio (the root at the bracket
+end u = 1) is checked on its own against mpmath: Newton steps are clamped into the
+bracket, as in the reference (airdata/pitot.py), so no element there is left out.
 
 Known binary32 limitation (shared with binary64 at its own, far smaller threshold):
 for a nonzero Mach number or speed below about 2**-60 its square underflows, so the
@@ -109,8 +106,6 @@ class Spec:
     kinds: tuple[str, ...]
     build: Callable[[list[F64]], list[F64]] = field(default=lambda a: a)
     outputs: tuple[str, ...] = ()  # record fields; empty for a one-output function
-    #: pitot ratios the function feeds to the supersonic solver (for the known defect)
-    ratios: Callable[[list[F64]], list[F64]] = field(default=lambda a: [])
 
 
 def _qc_from_ratio(a: list[F64]) -> list[F64]:
@@ -122,20 +117,6 @@ def _chain_inputs(a: list[F64]) -> list[F64]:
     with np.errstate(all="ignore"):
         return [a[0], a[0] * (1.0 + a[1]), a[2], a[3], a[4]]
 
-
-def _ratio_of_mach(m: F64) -> F64:
-    with np.errstate(all="ignore"):
-        return airdata.pitot.ratio_from_mach(np.nan_to_num(m))
-
-
-_P0 = ICAO.p0
-_RATIOS = {
-    "mach_from_impact_pressure": lambda a: [a[0] / a[1]],
-    "cas_from_impact_pressure": lambda a: [a[0] / _P0],
-    "cas_from_mach": lambda a: [a[1] * _ratio_of_mach(a[0]) / _P0],
-    "mach_from_cas": lambda a: [_P0 * _ratio_of_mach(a[0] / ICAO.a0) / a[1]],
-    "air_data": lambda a: [(a[1] - a[0]) / a[0], (a[1] - a[0]) / _P0],
-}
 
 _ATM = ("temperature", "pressure", "density", "speed_of_sound", "dynamic_viscosity",
         "kinematic_viscosity")
@@ -167,8 +148,6 @@ SPECS = [
     Spec("air_data", ("pressure", "pt_ratio", "temperature", "recovery", "setting"),
          build=_chain_inputs, outputs=_AIR),
 ]
-SPECS = [Spec(s.name, s.kinds, s.build, s.outputs, _RATIOS[s.name]) if s.name in _RATIOS
-         else s for s in SPECS]
 BY_NAME = {s.name: s for s in SPECS}
 TINY = {"double": 2.0**-1022, "single": 2.0**-126}
 
@@ -266,7 +245,7 @@ class Comparison:
 
     worst: float = 0.0
     worst_at: tuple[float, ...] = ()
-    excused: int = 0  # binary32 elements in the sonic-ratio band or with tiny inputs
+    excused: int = 0  # binary32 elements with tiny nonzero inputs
     worst_excused: float = 0.0
     status_mismatches: list[str] = field(default_factory=list)
     value_failures: list[str] = field(default_factory=list)
@@ -303,7 +282,7 @@ def compare(spec: Spec, raw: Sequence[F64], precision: str, exact_status: bool =
     ratio = np.where(both_nan, 0.0, ratio)
     ratio = np.where(np.isnan(ratio), np.inf, ratio)
     if precision == "single":
-        near = sonic_band(spec, sub)
+        near = np.zeros(sub[0].shape, dtype=bool)
         with np.errstate(all="ignore"):
             for a in sub:
                 near |= (a != 0) & (np.abs(a) < 2.0**-60)
@@ -321,29 +300,20 @@ def compare(spec: Spec, raw: Sequence[F64], precision: str, exact_status: bool =
     return res
 
 
-def sonic_band(spec: Spec, args: Sequence[F64]) -> NDArray[np.bool_]:
-    """Elements whose pitot ratio lies within 8 binary32 ulps of the sonic ratio."""
-    near = np.zeros(args[0].shape, dtype=bool)
-    with np.errstate(all="ignore"):
-        for x in spec.ratios(list(args)):
-            near |= np.abs(x / RATIO_SONIC - 1.0) <= 8 * EPS["single"]
-    return near
-
-
-@pytest.mark.xfail(strict=True, reason="known binary32 defect of the supersonic solver just "
-                   "above the sonic ratio (bisection fallback at the bracket end u = 1); "
-                   "the binary64 reference is not affected")
-def test_single_precision_solver_just_above_sonic_ratio() -> None:
-    # The first binary32 ratios above RATIO_SONIC; exact Mach numbers from mpmath
-    # (the Rayleigh pitot formula, NACA Report 1135 eq. 100) solved at 30 digits.
+@pytest.mark.parametrize("precision", ["double", "single"])
+def test_solver_just_above_sonic_ratio(precision: str) -> None:
+    # The first 16 ratios of the precision above RATIO_SONIC, where the root lies at
+    # the solver's bracket end u = 1; exact Mach numbers from mpmath (the Rayleigh
+    # pitot formula, NACA Report 1135 eq. 100) solved at 30 digits.
     import mpmath  # noqa: PLC0415
 
-    x = np.float32(RATIO_SONIC)
+    ftype = np.float32 if precision == "single" else np.float64
+    x = ftype(RATIO_SONIC)
     xs = []
-    for _ in range(4):
-        x = np.nextafter(x, np.float32(2))
+    for _ in range(16):
+        x = np.nextafter(x, ftype(2))
         xs.append(float(x))
-    got = cport.mach_from_impact_pressure(np.array(xs), 1.0, precision="single")
+    got = cport.mach_from_impact_pressure(np.array(xs), 1.0, precision=precision)
     with mpmath.workdps(30):
         for xi, m in zip(xs, got, strict=True):
             r = 1 + mpmath.mpf(xi)
@@ -351,7 +321,7 @@ def test_single_precision_solver_just_above_sonic_ratio() -> None:
                 lambda mm, r=r: mpmath.mpf("1.2") * mm**2
                 * (mpmath.mpf("7.2") * mm**2 / (7 * mm**2 - 1)) ** mpmath.mpf("2.5") - r,
                 mpmath.mpf(1) + mpmath.mpf(xi - RATIO_SONIC))
-            assert abs(float(m) - float(exact)) <= 2 * EPS["single"]
+            assert abs(float(m) - float(exact)) <= 2 * EPS[precision]
 
 
 # ---------------------------------------------------------------------------------

@@ -9,7 +9,12 @@
  *
  * Layer rows: { hb, lapse, tb, pb, m = L/Tb, k = g0/(R L), c = g0/(R Tb),
  *   n = -R L/g0, sh = -R Tb/g0, rho_b = pb/(R Tb), kd = -R L/(g0 + R L),
- *   gradient }; unused entries of a layer are exact zeros.
+ *   tb_lo, lapse_lo, pb_lo, gradient }; unused entries of a layer are exact
+ *   zeros.  *_LO: double-double (binary32: float-float) low parts,
+ *   lo = nearest(x - hi) from the 40-digit decimal x.
+ * AD_RATIO_LIMIT, AD_MACH_LIMIT: limits of derived qc/ps, qc/p0 and Mach
+ *   numbers, widened by 8 binary64 ulp (airdata._domains.DERIVED_SLACK);
+ *   binary32: that binary64-based value rounded to binary32.
  */
 #ifndef AD_CONSTANTS_H
 #define AD_CONSTANTS_H
@@ -32,13 +37,18 @@
 #define AD_PHI_INF 0x1.dd2e86p-1f
 #define AD_RHO_MIN 0x1.d2ef72p-18f
 #define AD_RHO_MAX 0x1.ee3304p+0f
+#define AD_R_LO 0x1.0993ccp-19f
+#define AD_SUTH_BETA_LO (-0x1.7e967p-45f)
+#define AD_RATIO_LIMIT 0x1.006f16p+7f
+#define AD_MACH_LIMIT 0x1.4p+3f
 #define AD_K_0P2 0x1.99999ap-3f /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.666666p-1f /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.333334p+0f /* 1.2: (gamma + 1)/2 */
 #define AD_K_7P2 0x1.ccccccp+2f /* 7.2: Rayleigh pitot constant 2 gamma/(gamma - 1) + 0.2 */
-#define AD_K_0P15 0x1.333334p-3f /* 0.15: start-value coefficient of the supersonic solver */
+#define AD_K_S1 (-0x1.c28f5cp-4f) /* -0.11: start-value coefficient of the supersonic solver (x^1) */
+#define AD_K_S2 0x1.3404eap-4f /* 0.0752: start-value coefficient of the supersonic solver (x^2) */
+#define AD_K_S3 (-0x1.da511ap-3f) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6dcp-2f /* 5/14: 2.5/7, start-value offset of the supersonic solver */
-#define AD_K_0P5 0x1p-1f /* 0.5: one half */
 #define AD_K_1 0x1p+0f /* 1: one */
 #define AD_K_2P5 0x1.4p+1f /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1f /* 3.5: exponent gamma/(gamma - 1) */
@@ -71,13 +81,13 @@
 #define AD_SETTING_LO 0x1.61a042p+14f
 #define AD_SETTING_HI 0x1.5b0b7cp+17f
 #define AD_LAYER1_BASE 0x1.57cp+13f
-#define AD_LAYER_0 { 0x0p+0f, (-0x1.a9fbe8p-8f), 0x1.202666p+8f, 0x1.8bcdp+16f, (-0x1.7a749p-16f), (-0x1.506046p+2f), 0x0p+0f, 0x1.85a8bcp-3f, (-0x1.07942p+13f), 0x1.39998cp+0f, 0x1.e1378ep-3f, 1 }
-#define AD_LAYER_1 { 0x1.57cp+13f, 0x0p+0f, 0x1.b14cccp+7f, 0x1.61a042p+14f, 0x0p+0f, 0x0p+0f, 0x1.4ab252p-13f, 0x0p+0f, (-0x1.8c59ecp+12f), 0x1.74a6dcp-2f, 0x0p+0f, 0 }
-#define AD_LAYER_2 { 0x1.388p+14f, 0x1.0624dep-10f, 0x1.b14cccp+7f, 0x1.562e38p+12f, 0x1.35c1cep-18f, 0x1.114e3ap+5f, 0x0p+0f, (-0x1.df9498p-6f), (-0x1.8c59ecp+12f), 0x1.68972ep-4f, (-0x1.d1f116p-6f), 1 }
-#define AD_LAYER_3 { 0x1.f4p+14f, 0x1.6f0068p-9f, 0x1.c94cccp+7f, 0x1.b20264p+9f, 0x1.9ae68ap-17f, 0x1.866fcp+3f, 0x0p+0f, (-0x1.4fb4dp-4f), (-0x1.a24ep+12f), 0x1.b15b56p-7f, (-0x1.3646b6p-4f), 1 }
-#define AD_LAYER_4 { 0x1.6f3p+15f, 0x0p+0f, 0x1.0ea666p+8f, 0x1.bba00ep+6f, 0x0p+0f, 0x0p+0f, 0x1.08b752p-13f, 0x0p+0f, (-0x1.ef244cp+12f), 0x1.763816p-10f, 0x0p+0f, 0 }
-#define AD_LAYER_5 { 0x1.8e7p+15f, (-0x1.6f0068p-9f), 0x1.0ea666p+8f, 0x1.0bc168p+6f, (-0x1.5b22dep-17f), (-0x1.866fcp+3f), 0x0p+0f, 0x1.4fb4dp-4f, (-0x1.ef244cp+12f), 0x1.c3baa8p-11f, 0x1.6dad52p-4f, 1 }
-#define AD_LAYER_6 { 0x1.1558p+16f, (-0x1.0624dep-9f), 0x1.ad4cccp+7f, 0x1.fa6bfcp+1f, (-0x1.38a4aap-17f), (-0x1.114e3ap+4f), 0x0p+0f, 0x1.df9498p-5f, (-0x1.88b13ep+12f), 0x1.0d5206p-14f, 0x1.fd66f2p-5f, 1 }
+#define AD_LAYER_0 { 0x0p+0f, (-0x1.a9fbe8p-8f), 0x1.202666p+8f, 0x1.8bcdp+16f, (-0x1.7a749p-16f), (-0x1.506046p+2f), 0x0p+0f, 0x1.85a8bcp-3f, (-0x1.07942p+13f), 0x1.39998cp+0f, 0x1.e1378ep-3f, 0x1.99999ap-18f, 0x1.26e978p-33f, 0x0p+0f, 1 }
+#define AD_LAYER_1 { 0x1.57cp+13f, 0x0p+0f, 0x1.b14cccp+7f, 0x1.61a042p+14f, 0x0p+0f, 0x0p+0f, 0x1.4ab252p-13f, 0x0p+0f, (-0x1.8c59ecp+12f), 0x1.74a6dcp-2f, 0x0p+0f, 0x1.99999ap-18f, 0x0p+0f, (-0x1.f6f64ep-12f), 0 }
+#define AD_LAYER_2 { 0x1.388p+14f, 0x1.0624dep-10f, 0x1.b14cccp+7f, 0x1.562e38p+12f, 0x1.35c1cep-18f, 0x1.114e3ap+5f, 0x0p+0f, (-0x1.df9498p-6f), (-0x1.8c59ecp+12f), 0x1.68972ep-4f, (-0x1.d1f116p-6f), 0x1.99999ap-18f, (-0x1.a1cacp-35f), (-0x1.26e7ecp-19f), 1 }
+#define AD_LAYER_3 { 0x1.f4p+14f, 0x1.6f0068p-9f, 0x1.c94cccp+7f, 0x1.b20264p+9f, 0x1.9ae68ap-17f, 0x1.866fcp+3f, 0x0p+0f, (-0x1.4fb4dp-4f), (-0x1.a24ep+12f), 0x1.b15b56p-7f, (-0x1.3646b6p-4f), 0x1.99999ap-18f, 0x1.b71758p-34f, 0x1.0c5946p-17f, 1 }
+#define AD_LAYER_4 { 0x1.6f3p+15f, 0x0p+0f, 0x1.0ea666p+8f, 0x1.bba00ep+6f, 0x0p+0f, 0x0p+0f, 0x1.08b752p-13f, 0x0p+0f, (-0x1.ef244cp+12f), 0x1.763816p-10f, 0x0p+0f, 0x1.99999ap-18f, 0x0p+0f, 0x1.207618p-19f, 0 }
+#define AD_LAYER_5 { 0x1.8e7p+15f, (-0x1.6f0068p-9f), 0x1.0ea666p+8f, 0x1.0bc168p+6f, (-0x1.5b22dep-17f), (-0x1.866fcp+3f), 0x0p+0f, 0x1.4fb4dp-4f, (-0x1.ef244cp+12f), 0x1.c3baa8p-11f, 0x1.6dad52p-4f, 0x1.99999ap-18f, (-0x1.b71758p-34f), (-0x1.721284p-23f), 1 }
+#define AD_LAYER_6 { 0x1.1558p+16f, (-0x1.0624dep-9f), 0x1.ad4cccp+7f, 0x1.fa6bfcp+1f, (-0x1.38a4aap-17f), (-0x1.114e3ap+4f), 0x0p+0f, 0x1.df9498p-5f, (-0x1.88b13ep+12f), 0x1.0d5206p-14f, 0x1.fd66f2p-5f, 0x1.99999ap-18f, 0x1.a1cacp-34f, 0x1.ba947cp-28f, 1 }
 #else
 #define AD_G0 0x1.39d013a92a305p+3
 #define AD_R 0x1.1f0d962132798p+8
@@ -94,13 +104,18 @@
 #define AD_PHI_INF 0x1.dd2e86c35bdacp-1
 #define AD_RHO_MIN 0x1.d2ef71f7f00f7p-18
 #define AD_RHO_MAX 0x1.ee3304a8cbb2p+0
+#define AD_R_LO (-0x1.1e1c5c5bade8ap-46)
+#define AD_SUTH_BETA_LO (-0x1.1d1d13ae7ffdp-74)
+#define AD_RATIO_LIMIT 0x1.006f167bffa86p+7
+#define AD_MACH_LIMIT 0x1.400000000000ap+3
 #define AD_K_0P2 0x1.999999999999ap-3 /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.6666666666666p-1 /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.3333333333333p+0 /* 1.2: (gamma + 1)/2 */
 #define AD_K_7P2 0x1.ccccccccccccdp+2 /* 7.2: Rayleigh pitot constant 2 gamma/(gamma - 1) + 0.2 */
-#define AD_K_0P15 0x1.3333333333333p-3 /* 0.15: start-value coefficient of the supersonic solver */
+#define AD_K_S1 (-0x1.c28f5c28f5c29p-4) /* -0.11: start-value coefficient of the supersonic solver (x^1) */
+#define AD_K_S2 0x1.3404ea4a8c155p-4 /* 0.0752: start-value coefficient of the supersonic solver (x^2) */
+#define AD_K_S3 (-0x1.da5119ce075f7p-3) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6db6db6db7p-2 /* 5/14: 2.5/7, start-value offset of the supersonic solver */
-#define AD_K_0P5 0x1p-1 /* 0.5: one half */
 #define AD_K_1 0x1p+0 /* 1: one */
 #define AD_K_2P5 0x1.4p+1 /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1 /* 3.5: exponent gamma/(gamma - 1) */
@@ -133,13 +148,13 @@
 #define AD_SETTING_LO 0x1.61a04182426c6p+14
 #define AD_SETTING_HI 0x1.5b0b7cdc09e59p+17
 #define AD_LAYER1_BASE 0x1.57cp+13
-#define AD_LAYER_0 { 0x0p+0, (-0x1.a9fbe76c8b439p-8), 0x1.2026666666666p+8, 0x1.8bcdp+16, (-0x1.7a7490a837d9ap-16), (-0x1.5060463496f6fp+2), 0x0p+0, 0x1.85a8bb537afbap-3, (-0x1.0794200304abfp+13), 0x1.39998b702a531p+0, 0x1.e1378e4dbb2dfp-3, 1 }
-#define AD_LAYER_1 { 0x1.57cp+13, 0x0p+0, 0x1.b14cccccccccdp+7, 0x1.61a04182426c6p+14, 0x0p+0, 0x0p+0, 0x1.4ab2527ecf93dp-13, 0x0p+0, (-0x1.8c59eba3b33f2p+12), 0x1.74a6dc87e48dfp-2, 0x0p+0, 0 }
-#define AD_LAYER_2 { 0x1.388p+14, 0x1.0624dd2f1a9fcp-10, 0x1.b14cccccccccdp+7, 0x1.562e37fdb2303p+12, 0x1.35c1cdc3085bep-18, 0x1.114e390abaa8ap+5, 0x0p+0, (-0x1.df9497c934e6fp-6), (-0x1.8c59eba3b33f2p+12), 0x1.68972ea92f807p-4, (-0x1.d1f1159ce30f7p-6), 1 }
-#define AD_LAYER_3 { 0x1.f4p+14, 0x1.6f0068db8bac7p-9, 0x1.c94cccccccccdp+7, 0x1.b202644316515p+9, 0x1.9ae68a1cefe76p-17, 0x1.866fbf33e6158p+3, 0x0p+0, (-0x1.4fb4d0a671d4dp-4), (-0x1.a24e00f671232p+12), 0x1.b15b567b03d73p-7, (-0x1.3646b5bf6a6f2p-4), 1 }
-#define AD_LAYER_4 { 0x1.6f3p+15, 0x0p+0, 0x1.0ea6666666666p+8, 0x1.bba00e903b0bep+6, 0x0p+0, 0x0p+0, 0x1.08b75241f1e1p-13, 0x0p+0, (-0x1.ef244b9809c0dp+12), 0x1.763815d02c2ap-10, 0x0p+0, 0 }
-#define AD_LAYER_5 { 0x1.8e7p+15, (-0x1.6f0068db8bac7p-9), 0x1.0ea6666666666p+8, 0x1.0bc167f46f6bep+6, (-0x1.5b22dd4b314d6p-17), (-0x1.866fbf33e6158p+3), 0x0p+0, 0x1.4fb4d0a671d4dp-4, (-0x1.ef244b9809c0dp+12), 0x1.c3baa75f191bep-11, 0x1.6dad520ab650fp-4, 1 }
-#define AD_LAYER_6 { 0x1.1558p+16, (-0x1.0624dd2f1a9fcp-9), 0x1.ad4cccccccccdp+7, 0x1.fa6bfc0dd4a3ep+1, (-0x1.38a4a918df0d6p-17), (-0x1.114e390abaa8ap+4), 0x0p+0, 0x1.df9497c934e6fp-5, (-0x1.88b13d6b3e43dp+12), 0x1.0d5205a1e5e8p-14, 0x1.fd66f22ec1a12p-5, 1 }
+#define AD_LAYER_0 { 0x0p+0, (-0x1.a9fbe76c8b439p-8), 0x1.2026666666666p+8, 0x1.8bcdp+16, (-0x1.7a7490a837d9ap-16), (-0x1.5060463496f6fp+2), 0x0p+0, 0x1.85a8bb537afbap-3, (-0x1.0794200304abfp+13), 0x1.39998b702a531p+0, 0x1.e1378e4dbb2dfp-3, 0x1.999999999999ap-46, (-0x1.604189374bc6ap-62), 0x0p+0, 1 }
+#define AD_LAYER_1 { 0x1.57cp+13, 0x0p+0, 0x1.b14cccccccccdp+7, 0x1.61a04182426c6p+14, 0x0p+0, 0x0p+0, 0x1.4ab2527ecf93dp-13, 0x0p+0, (-0x1.8c59eba3b33f2p+12), 0x1.74a6dc87e48dfp-2, 0x0p+0, (-0x1.999999999999ap-48), 0x0p+0, 0x1.b3595081e6775p-41, 0 }
+#define AD_LAYER_2 { 0x1.388p+14, 0x1.0624dd2f1a9fcp-10, 0x1.b14cccccccccdp+7, 0x1.562e37fdb2303p+12, 0x1.35c1cdc3085bep-18, 0x1.114e390abaa8ap+5, 0x0p+0, (-0x1.df9497c934e6fp-6), (-0x1.8c59eba3b33f2p+12), 0x1.68972ea92f807p-4, (-0x1.d1f1159ce30f7p-6), (-0x1.999999999999ap-48), (-0x1.89374bc6a7efap-66), (-0x1.b2d6db7962b9ap-42), 1 }
+#define AD_LAYER_3 { 0x1.f4p+14, 0x1.6f0068db8bac7p-9, 0x1.c94cccccccccdp+7, 0x1.b202644316515p+9, 0x1.9ae68a1cefe76p-17, 0x1.866fbf33e6158p+3, 0x0p+0, (-0x1.4fb4d0a671d4dp-4), (-0x1.a24e00f671232p+12), 0x1.b15b567b03d73p-7, (-0x1.3646b5bf6a6f2p-4), (-0x1.999999999999ap-48), 0x1.0cb295e9e1b09p-65, (-0x1.bcaa1805d05e9p-46), 1 }
+#define AD_LAYER_4 { 0x1.6f3p+15, 0x0p+0, 0x1.0ea6666666666p+8, 0x1.bba00e903b0bep+6, 0x0p+0, 0x0p+0, 0x1.08b75241f1e1p-13, 0x0p+0, (-0x1.ef244b9809c0dp+12), 0x1.763815d02c2ap-10, 0x0p+0, 0x1.999999999999ap-46, 0x0p+0, (-0x1.867c002de58b4p-48), 0 }
+#define AD_LAYER_5 { 0x1.8e7p+15, (-0x1.6f0068db8bac7p-9), 0x1.0ea6666666666p+8, 0x1.0bc167f46f6bep+6, (-0x1.5b22dd4b314d6p-17), (-0x1.866fbf33e6158p+3), 0x0p+0, 0x1.4fb4d0a671d4dp-4, (-0x1.ef244b9809c0dp+12), 0x1.c3baa75f191bep-11, 0x1.6dad520ab650fp-4, 0x1.999999999999ap-46, (-0x1.0cb295e9e1b09p-65), (-0x1.a62e6bb3b6b5ap-49), 1 }
+#define AD_LAYER_6 { 0x1.1558p+16, (-0x1.0624dd2f1a9fcp-9), 0x1.ad4cccccccccdp+7, 0x1.fa6bfc0dd4a3ep+1, (-0x1.38a4a918df0d6p-17), (-0x1.114e390abaa8ap+4), 0x0p+0, 0x1.df9497c934e6fp-5, (-0x1.88b13d6b3e43dp+12), 0x1.0d5205a1e5e8p-14, 0x1.fd66f22ec1a12p-5, (-0x1.999999999999ap-48), 0x1.89374bc6a7efap-65, (-0x1.36d3d110abae8p-55), 1 }
 #endif /* AIRDATA_SINGLE */
 #else /* ICAO Doc 7488/3, the default */
 #define AD_PROFILE_NAME "icao"
@@ -159,13 +174,18 @@
 #define AD_PHI_INF 0x1.dd2e86p-1f
 #define AD_RHO_MIN 0x1.d2ee7ap-18f
 #define AD_RHO_MAX 0x1.ee3328p+0f
+#define AD_R_LO 0x1.c6d1e2p-17f
+#define AD_SUTH_BETA_LO (-0x1.7e967p-45f)
+#define AD_RATIO_LIMIT 0x1.006f16p+7f
+#define AD_MACH_LIMIT 0x1.4p+3f
 #define AD_K_0P2 0x1.99999ap-3f /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.666666p-1f /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.333334p+0f /* 1.2: (gamma + 1)/2 */
 #define AD_K_7P2 0x1.ccccccp+2f /* 7.2: Rayleigh pitot constant 2 gamma/(gamma - 1) + 0.2 */
-#define AD_K_0P15 0x1.333334p-3f /* 0.15: start-value coefficient of the supersonic solver */
+#define AD_K_S1 (-0x1.c28f5cp-4f) /* -0.11: start-value coefficient of the supersonic solver (x^1) */
+#define AD_K_S2 0x1.3404eap-4f /* 0.0752: start-value coefficient of the supersonic solver (x^2) */
+#define AD_K_S3 (-0x1.da511ap-3f) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6dcp-2f /* 5/14: 2.5/7, start-value offset of the supersonic solver */
-#define AD_K_0P5 0x1p-1f /* 0.5: one half */
 #define AD_K_1 0x1p+0f /* 1: one */
 #define AD_K_2P5 0x1.4p+1f /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1f /* 3.5: exponent gamma/(gamma - 1) */
@@ -198,13 +218,13 @@
 #define AD_SETTING_LO 0x1.61a02ap+14f
 #define AD_SETTING_HI 0x1.5b0b86p+17f
 #define AD_LAYER1_BASE 0x1.57cp+13f
-#define AD_LAYER_0 { 0x0p+0f, (-0x1.a9fbe8p-8f), 0x1.202666p+8f, 0x1.8bcdp+16f, (-0x1.7a749p-16f), (-0x1.506056p+2f), 0x0p+0f, 0x1.85a8aap-3f, (-0x1.079414p+13f), 0x1.39999ap+0f, 0x1.e13772p-3f, 1 }
-#define AD_LAYER_1 { 0x1.57cp+13f, 0x0p+0f, 0x1.b14cccp+7f, 0x1.61a02ap+14f, 0x0p+0f, 0x0p+0f, 0x1.4ab262p-13f, 0x0p+0f, (-0x1.8c59dap+12f), 0x1.74a6d4p-2f, 0x0p+0f, 0 }
-#define AD_LAYER_2 { 0x1.388p+14f, 0x1.0624dep-10f, 0x1.b14cccp+7f, 0x1.562e0ap+12f, 0x1.35c1cep-18f, 0x1.114e46p+5f, 0x0p+0f, (-0x1.df9482p-6f), (-0x1.8c59dap+12f), 0x1.68970ep-4f, (-0x1.d1f1p-6f), 1 }
-#define AD_LAYER_3 { 0x1.f4p+14f, 0x1.6f0068p-9f, 0x1.c94cccp+7f, 0x1.b20204p+9f, 0x1.9ae68ap-17f, 0x1.866fd2p+3f, 0x0p+0f, (-0x1.4fb4c2p-4f), (-0x1.a24deep+12f), 0x1.b15b0cp-7f, (-0x1.3646a8p-4f), 1 }
-#define AD_LAYER_4 { 0x1.6f3p+15f, 0x0p+0f, 0x1.0ea666p+8f, 0x1.bb9f84p+6f, 0x0p+0f, 0x0p+0f, 0x1.08b75ep-13f, 0x0p+0f, (-0x1.ef2434p+12f), 0x1.7637b2p-10f, 0x0p+0f, 0 }
-#define AD_LAYER_5 { 0x1.8e7p+15f, (-0x1.6f0068p-9f), 0x1.0ea666p+8f, 0x1.0bc10ep+6f, (-0x1.5b22dep-17f), (-0x1.866fd2p+3f), 0x0p+0f, 0x1.4fb4c2p-4f, (-0x1.ef2434p+12f), 0x1.c3ba24p-11f, 0x1.6dad4p-4f, 1 }
-#define AD_LAYER_6 { 0x1.1558p+16f, (-0x1.0624dep-9f), 0x1.ad4cccp+7f, 0x1.fa6b0ep+1f, (-0x1.38a4aap-17f), (-0x1.114e46p+4f), 0x0p+0f, 0x1.df9482p-5f, (-0x1.88b12cp+12f), 0x1.0d5194p-14f, 0x1.fd66dap-5f, 1 }
+#define AD_LAYER_0 { 0x0p+0f, (-0x1.a9fbe8p-8f), 0x1.202666p+8f, 0x1.8bcdp+16f, (-0x1.7a749p-16f), (-0x1.506056p+2f), 0x0p+0f, 0x1.85a8aap-3f, (-0x1.079414p+13f), 0x1.39999ap+0f, 0x1.e13772p-3f, 0x1.99999ap-18f, 0x1.26e978p-33f, 0x0p+0f, 1 }
+#define AD_LAYER_1 { 0x1.57cp+13f, 0x0p+0f, 0x1.b14cccp+7f, 0x1.61a02ap+14f, 0x0p+0f, 0x0p+0f, 0x1.4ab262p-13f, 0x0p+0f, (-0x1.8c59dap+12f), 0x1.74a6d4p-2f, 0x0p+0f, 0x1.99999ap-18f, 0x0p+0f, (-0x1.e2ab26p-11f), 0 }
+#define AD_LAYER_2 { 0x1.388p+14f, 0x1.0624dep-10f, 0x1.b14cccp+7f, 0x1.562e0ap+12f, 0x1.35c1cep-18f, 0x1.114e46p+5f, 0x0p+0f, (-0x1.df9482p-6f), (-0x1.8c59dap+12f), 0x1.68970ep-4f, (-0x1.d1f1p-6f), 0x1.99999ap-18f, (-0x1.a1cacp-35f), (-0x1.1f5032p-16f), 1 }
+#define AD_LAYER_3 { 0x1.f4p+14f, 0x1.6f0068p-9f, 0x1.c94cccp+7f, 0x1.b20204p+9f, 0x1.9ae68ap-17f, 0x1.866fd2p+3f, 0x0p+0f, (-0x1.4fb4c2p-4f), (-0x1.a24deep+12f), 0x1.b15b0cp-7f, (-0x1.3646a8p-4f), 0x1.99999ap-18f, 0x1.b71758p-34f, 0x1.efc3dcp-16f, 1 }
+#define AD_LAYER_4 { 0x1.6f3p+15f, 0x0p+0f, 0x1.0ea666p+8f, 0x1.bb9f84p+6f, 0x0p+0f, 0x0p+0f, 0x1.08b75ep-13f, 0x0p+0f, (-0x1.ef2434p+12f), 0x1.7637b2p-10f, 0x0p+0f, 0x1.99999ap-18f, 0x0p+0f, (-0x1.e48e88p-19f), 0 }
+#define AD_LAYER_5 { 0x1.8e7p+15f, (-0x1.6f0068p-9f), 0x1.0ea666p+8f, 0x1.0bc10ep+6f, (-0x1.5b22dep-17f), (-0x1.866fd2p+3f), 0x0p+0f, 0x1.4fb4c2p-4f, (-0x1.ef2434p+12f), 0x1.c3ba24p-11f, 0x1.6dad4p-4f, 0x1.99999ap-18f, (-0x1.b71758p-34f), (-0x1.efd284p-20f), 1 }
+#define AD_LAYER_6 { 0x1.1558p+16f, (-0x1.0624dep-9f), 0x1.ad4cccp+7f, 0x1.fa6b0ep+1f, (-0x1.38a4aap-17f), (-0x1.114e46p+4f), 0x0p+0f, 0x1.df9482p-5f, (-0x1.88b12cp+12f), 0x1.0d5194p-14f, 0x1.fd66dap-5f, 0x1.99999ap-18f, 0x1.a1cacp-34f, 0x1.db0ddep-24f, 1 }
 #else
 #define AD_G0 0x1.39d013a92a305p+3
 #define AD_R 0x1.1f0d88e368f08p+8
@@ -219,15 +239,20 @@
 #define AD_RATIO_SONIC 0x1.c92e02bcd9065p-1
 #define AD_RATIO_MAX 0x1.006f167bffa7ep+7
 #define AD_PHI_INF 0x1.dd2e86c35bdacp-1
-#define AD_RHO_MIN 0x1.d2ee7a07272cap-18
+#define AD_RHO_MIN 0x1.d2ee7a07272ccp-18
 #define AD_RHO_MAX 0x1.ee332842c4a11p+0
+#define AD_R_LO 0x1.187e7c06e19b9p-46
+#define AD_SUTH_BETA_LO (-0x1.1d1d13ae7ffdp-74)
+#define AD_RATIO_LIMIT 0x1.006f167bffa86p+7
+#define AD_MACH_LIMIT 0x1.400000000000ap+3
 #define AD_K_0P2 0x1.999999999999ap-3 /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.6666666666666p-1 /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.3333333333333p+0 /* 1.2: (gamma + 1)/2 */
 #define AD_K_7P2 0x1.ccccccccccccdp+2 /* 7.2: Rayleigh pitot constant 2 gamma/(gamma - 1) + 0.2 */
-#define AD_K_0P15 0x1.3333333333333p-3 /* 0.15: start-value coefficient of the supersonic solver */
+#define AD_K_S1 (-0x1.c28f5c28f5c29p-4) /* -0.11: start-value coefficient of the supersonic solver (x^1) */
+#define AD_K_S2 0x1.3404ea4a8c155p-4 /* 0.0752: start-value coefficient of the supersonic solver (x^2) */
+#define AD_K_S3 (-0x1.da5119ce075f7p-3) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6db6db6db7p-2 /* 5/14: 2.5/7, start-value offset of the supersonic solver */
-#define AD_K_0P5 0x1p-1 /* 0.5: one half */
 #define AD_K_1 0x1p+0 /* 1: one */
 #define AD_K_2P5 0x1.4p+1 /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1 /* 3.5: exponent gamma/(gamma - 1) */
@@ -255,18 +280,18 @@
 #define AD_ALTITUDE_HI 0x1.4b74p+16
 #define AD_GEOMETRIC_LO (-0x1.38411fd72d74ep+12)
 #define AD_GEOMETRIC_HI 0x1.4feff3f1a9d9ap+16
-#define AD_PRESSURE_LO 0x1.7e5767e637bf5p-2
+#define AD_PRESSURE_LO 0x1.7e5767e637bf6p-2
 #define AD_PRESSURE_HI 0x1.5b0b85d9f9677p+17
 #define AD_SETTING_LO 0x1.61a0290eaa6cfp+14
 #define AD_SETTING_HI 0x1.5b0b85d9f9677p+17
 #define AD_LAYER1_BASE 0x1.57cp+13
-#define AD_LAYER_0 { 0x0p+0, (-0x1.a9fbe76c8b439p-8), 0x1.2026666666666p+8, 0x1.8bcdp+16, (-0x1.7a7490a837d9ap-16), (-0x1.506055b8d4c87p+2), 0x0p+0, 0x1.85a8a95a06c93p-3, (-0x1.079413da70654p+13), 0x1.399999e771772p+0, 0x1.e13772e3d4507p-3, 1 }
-#define AD_LAYER_1 { 0x1.57cp+13, 0x0p+0, 0x1.b14cccccccccdp+7, 0x1.61a0290eaa6cfp+14, 0x0p+0, 0x0p+0, 0x1.4ab261bffbc74p-13, 0x0p+0, (-0x1.8c59d95b38236p+12), 0x1.74a6d3f4226e3p-2, 0x0p+0, 0 }
-#define AD_LAYER_2 { 0x1.388p+14, 0x1.0624dd2f1a9fcp-10, 0x1.b14cccccccccdp+7, 0x1.562e09ee0afcfp+12, 0x1.35c1cdc3085bep-18, 0x1.114e45a62ce2dp+5, 0x0p+0, (-0x1.df9481a9e0f7cp-6), (-0x1.8c59d95b38236p+12), 0x1.68970ec14c16fp-4, (-0x1.d1f100bb18707p-6), 1 }
-#define AD_LAYER_3 { 0x1.f4p+14, 0x1.6f0068db8bac7p-9, 0x1.c94cccccccccdp+7, 0x1.b20204f7e1eddp+9, 0x1.9ae68a1cefe76p-17, 0x1.866fd1368944p+3, 0x0p+0, (-0x1.4fb4c12a1d7a3p-4), (-0x1.a24dedaab6e7cp+12), 0x1.b15b0b51f3dbp-7, (-0x1.3646a884f123ep-4), 1 }
-#define AD_LAYER_4 { 0x1.6f3p+15, 0x0p+0, 0x1.0ea6666666666p+8, 0x1.bb9f830db8bc1p+6, 0x0p+0, 0x0p+0, 0x1.08b75e77f56eap-13, 0x0p+0, (-0x1.ef2434c0f296ep+12), 0x1.7637b16461ed9p-10, 0x0p+0, 0 }
-#define AD_LAYER_5 { 0x1.8e7p+15, (-0x1.6f0068db8bac7p-9), 0x1.0ea6666666666p+8, 0x1.0bc10d840b5f1p+6, (-0x1.5b22dd4b314d6p-17), (-0x1.866fd1368944p+3), 0x0p+0, 0x1.4fb4c12a1d7a3p-4, (-0x1.ef2434c0f296ep+12), 0x1.c3ba23a1360d9p-11, 0x1.6dad3faaf12f9p-4, 1 }
-#define AD_LAYER_6 { 0x1.1558p+16, (-0x1.0624dd2f1a9fcp-9), 0x1.ad4cccccccccdp+7, 0x1.fa6b0eed86ef5p+1, (-0x1.38a4a918df0d6p-17), (-0x1.114e45a62ce2dp+4), 0x0p+0, 0x1.df9481a9e0f7cp-5, (-0x1.88b12b4df858p+12), 0x1.0d5193f314726p-14, 0x1.fd66d93934ceep-5, 1 }
+#define AD_LAYER_0 { 0x0p+0, (-0x1.a9fbe76c8b439p-8), 0x1.2026666666666p+8, 0x1.8bcdp+16, (-0x1.7a7490a837d9ap-16), (-0x1.506055b8d4c87p+2), 0x0p+0, 0x1.85a8a95a06c93p-3, (-0x1.079413da70654p+13), 0x1.399999e771772p+0, 0x1.e13772e3d4507p-3, 0x1.999999999999ap-46, (-0x1.604189374bc6ap-62), 0x0p+0, 1 }
+#define AD_LAYER_1 { 0x1.57cp+13, 0x0p+0, 0x1.b14cccccccccdp+7, 0x1.61a0290eaa6cfp+14, 0x0p+0, 0x0p+0, 0x1.4ab261bffbc74p-13, 0x0p+0, (-0x1.8c59d95b38236p+12), 0x1.74a6d3f4226e3p-2, 0x0p+0, (-0x1.999999999999ap-48), 0x0p+0, (-0x1.b1a454026ae12p-41), 0 }
+#define AD_LAYER_2 { 0x1.388p+14, 0x1.0624dd2f1a9fcp-10, 0x1.b14cccccccccdp+7, 0x1.562e09ee0afcfp+12, 0x1.35c1cdc3085bep-18, 0x1.114e45a62ce2dp+5, 0x0p+0, (-0x1.df9481a9e0f7cp-6), (-0x1.8c59d95b38236p+12), 0x1.68970ec14c16fp-4, (-0x1.d1f100bb18707p-6), (-0x1.999999999999ap-48), (-0x1.89374bc6a7efap-66), (-0x1.420907ce1aefep-44), 1 }
+#define AD_LAYER_3 { 0x1.f4p+14, 0x1.6f0068db8bac7p-9, 0x1.c94cccccccccdp+7, 0x1.b20204f7e1eddp+9, 0x1.9ae68a1cefe76p-17, 0x1.866fd1368944p+3, 0x0p+0, (-0x1.4fb4c12a1d7a3p-4), (-0x1.a24dedaab6e7cp+12), 0x1.b15b0b51f3dbp-7, (-0x1.3646a884f123ep-4), (-0x1.999999999999ap-48), 0x1.0cb295e9e1b09p-65, (-0x1.b9b68dd296497p-45), 1 }
+#define AD_LAYER_4 { 0x1.6f3p+15, 0x0p+0, 0x1.0ea6666666666p+8, 0x1.bb9f830db8bc1p+6, 0x0p+0, 0x0p+0, 0x1.08b75e77f56eap-13, 0x0p+0, (-0x1.ef2434c0f296ep+12), 0x1.7637b16461ed9p-10, 0x0p+0, 0x1.999999999999ap-46, 0x0p+0, 0x1.02ba2d0e84aeap-49, 0 }
+#define AD_LAYER_5 { 0x1.8e7p+15, (-0x1.6f0068db8bac7p-9), 0x1.0ea6666666666p+8, 0x1.0bc10d840b5f1p+6, (-0x1.5b22dd4b314d6p-17), (-0x1.866fd1368944p+3), 0x0p+0, 0x1.4fb4c12a1d7a3p-4, (-0x1.ef2434c0f296ep+12), 0x1.c3ba23a1360d9p-11, 0x1.6dad3faaf12f9p-4, 0x1.999999999999ap-46, (-0x1.0cb295e9e1b09p-65), 0x1.0c4b85185e494p-48, 1 }
+#define AD_LAYER_6 { 0x1.1558p+16, (-0x1.0624dd2f1a9fcp-9), 0x1.ad4cccccccccdp+7, 0x1.fa6b0eed86ef5p+1, (-0x1.38a4a918df0d6p-17), (-0x1.114e45a62ce2dp+4), 0x0p+0, 0x1.df9481a9e0f7cp-5, (-0x1.88b12b4df858p+12), 0x1.0d5193f314726p-14, 0x1.fd66d93934ceep-5, (-0x1.999999999999ap-48), 0x1.89374bc6a7efap-65, 0x1.dceee067a7eccp-53, 1 }
 #endif /* AIRDATA_SINGLE */
 #endif /* profile */
 

@@ -15,6 +15,7 @@
 #include "airdata.h"
 #include "airdata_batch.h"
 #include "ad_constants.h"
+#include "ad_dd.h"
 
 /* Number of layers of the standard atmosphere. */
 #define AD_NLAYERS 7
@@ -32,6 +33,9 @@ typedef struct {
     ad_real sh;     /* -R Tb/g0 */
     ad_real rho_b;  /* base density pb/(R Tb), kg/m3 */
     ad_real kd;     /* -R L/(g0 + R L) (gradient layers), else 0 */
+    ad_real tb_lo;    /* low part of tb (double-double, ad_dd.h) */
+    ad_real lapse_lo; /* low part of lapse */
+    ad_real pb_lo;    /* low part of pb */
     int gradient;   /* 1 for a gradient layer, 0 for an isothermal one */
 } ad_layer;
 
@@ -60,6 +64,7 @@ ad_status ad_i_check(ad_real x, ad_domain_id domain);
 
 /* atmosphere.c */
 int ad_i_layer_of_altitude(ad_real h);
+ad_dd ad_i_pressure_dd(ad_real h, int i);
 ad_real ad_i_standard_pressure(ad_real h, int i);
 
 /* altimetry.c */
@@ -69,5 +74,6 @@ ad_real ad_i_altitude_of_density(ad_real p, ad_real temp, ad_real rho);
 /* pitot.c */
 ad_real ad_i_ratio_from_mach(ad_real m);
 ad_real ad_i_mach_from_ratio(ad_real x);
+ad_real ad_i_convert_mach(ad_real m, ad_real k, ad_real x);
 
 #endif /* AD_INTERNAL_H */

@@ -30,17 +30,24 @@ int ad_i_layer_of_altitude(ad_real h)
 }
 
 /*
- * ATM-3: p = pb exp(-(k log1p(m dh) + c dh)), one expression for both layer kinds
- * (the unused term adds an exact zero).  log1p keeps m dh (|m dh| < 0.25) accurate.
- * Relative error about (2 |e| + 3) ulp for the exponent e = k log1p(m dh) + c dh,
- * |e| <= 3 over the model; the condition scale of the result (|dp/dh h| is about
- * |e| p or more) absorbs the |e| part.
+ * ATM-3 kernel as a double-double: p = (pb + pb_lo) exp(e), e = -(k log1p(m dh) + c dh),
+ * one expression for both layer kinds (the unused term adds an exact zero).  log1p
+ * keeps m dh (|m dh| < 0.25) accurate.  The product with the double-double base
+ * pressure leaves the rounding of exp (a few ulp of exp's result, |e| <= 3 over the
+ * model, absorbed by the condition scale |dp/dh h| >= |e| p) besides the final one.
  */
-ad_real ad_i_standard_pressure(ad_real h, int i)
+ad_dd ad_i_pressure_dd(ad_real h, int i)
 {
     const ad_layer *L = &ad_i_layer[i];
     const ad_real dh = h - L->hb;
-    return L->pb * ad_exp(-(L->k * ad_log1p(L->m * dh) + L->c * dh));
+    const ad_real e = ad_exp(-(L->k * ad_log1p(L->m * dh) + L->c * dh));
+    return ad_i_dd_mul(ad_i_dd_pair(L->pb, L->pb_lo), ad_i_dd_of(e));
+}
+
+/* ATM-3: the standard pressure at geopotential altitude h in layer i, Pa (the hi part). */
+ad_real ad_i_standard_pressure(ad_real h, int i)
+{
+    return ad_i_pressure_dd(h, i).hi;
 }
 
 static void ad_atmosphere_nan(ad_atmosphere_t *out)
@@ -54,18 +61,37 @@ static void ad_atmosphere_nan(ad_atmosphere_t *out)
 }
 
 /*
- * ATM-2 .. ATM-6: T = Tb + L (h - hb) + dT; p (ATM-3); rho = p/(R T);
- * a = sqrt(gamma R T); mu = beta T sqrt(T)/(T + S) (Sutherland); nu = mu/rho.
- * Each output within a few ulp of the exact function of the rounded inputs.
+ * ATM-2 .. ATM-6 kernel in double-double (airdata/atmosphere.py state_dd):
+ * T = Tb + L (h - hb) + dT; p (ATM-3); rho = p/(R T); mu = beta T sqrt(T)/(T + S)
+ * (Sutherland); nu = mu R T/p; a = sqrt(gamma R T) from the rounded T.  Every
+ * constant is a double-double (ad_constants.h *_LO parts), h - hb is exact
+ * (Sterbenz: each layer spans less than a factor 2 in h), so each output is rounded
+ * about once: within about 1 ulp plus, for p, rho, mu and nu, the exp rounding of p.
  */
+static void ad_state_dd(ad_real h, ad_real dT, int i, ad_atmosphere_t *out)
+{
+    const ad_layer *L = &ad_i_layer[i];
+    const ad_dd r_gas = ad_i_dd_pair(AD_R, AD_R_LO);
+    const ad_dd lapse_dh = ad_i_dd_mul(ad_i_dd_pair(L->lapse, L->lapse_lo),
+                                       ad_i_dd_of(h - L->hb));
+    const ad_dd temp = ad_i_dd_add(ad_i_dd_add(ad_i_dd_pair(L->tb, L->tb_lo), lapse_dh),
+                                   ad_i_dd_of(dT));
+    const ad_dd p = ad_i_pressure_dd(h, i);
+    const ad_dd beta_t = ad_i_dd_mul(ad_i_dd_pair(AD_SUTH_BETA, AD_SUTH_BETA_LO), temp);
+    const ad_dd mu = ad_i_dd_div(ad_i_dd_mul(beta_t, ad_i_dd_sqrt(temp)),
+                                 ad_i_dd_add(temp, ad_i_dd_of(AD_SUTH_S)));
+    out->temperature = temp.hi;
+    out->pressure = p.hi;
+    out->density = ad_i_dd_div(p, ad_i_dd_mul(r_gas, temp)).hi;
+    out->speed_of_sound = ad_sqrt(AD_GAMMA_R * temp.hi);
+    out->dynamic_viscosity = mu.hi;
+    out->kinematic_viscosity = ad_i_dd_div(ad_i_dd_mul(ad_i_dd_mul(mu, r_gas), temp), p).hi;
+}
+
+/* ATM-2 .. ATM-6: the atmosphere at geopotential altitude h and deviation dT. */
 ad_status ad_atmosphere(ad_real h, ad_real dT, ad_atmosphere_t *out)
 {
     ad_status st;
-    int i;
-    ad_real temp;
-    ad_real p;
-    ad_real rho;
-    ad_real mu;
     if (out == NULL) {
         return AD_INVALID_INPUT;
     }
@@ -77,17 +103,7 @@ ad_status ad_atmosphere(ad_real h, ad_real dT, ad_atmosphere_t *out)
         ad_atmosphere_nan(out);
         return st;
     }
-    i = ad_i_layer_of_altitude(h);
-    temp = ad_i_layer[i].tb + ad_i_layer[i].lapse * (h - ad_i_layer[i].hb) + dT;
-    p = ad_i_standard_pressure(h, i);
-    rho = p / (AD_R * temp);
-    mu = AD_SUTH_BETA * temp * ad_sqrt(temp) / (temp + AD_SUTH_S);
-    out->temperature = temp;
-    out->pressure = p;
-    out->density = rho;
-    out->speed_of_sound = ad_sqrt(AD_GAMMA_R * temp);
-    out->dynamic_viscosity = mu;
-    out->kinematic_viscosity = mu / rho;
+    ad_state_dd(h, dT, ad_i_layer_of_altitude(h), out);
     return AD_OK;
 }
 

@@ -4,7 +4,8 @@
  * Order of the checks (the first failing one decides the status):
  *   noise_band (in [0, 10000] Pa), ps, pt, tat, recovery, setting (if use_setting);
  *   qc = pt - ps >= -noise_band (else AD_INVALID_INPUT);
- *   qc/ps <= RATIO_MAX (Mach 10), qc/p0 <= RATIO_MAX (CAS 10 a0);
+ *   qc/ps <= AD_RATIO_LIMIT (Mach 10), qc/p0 <= AD_RATIO_LIMIT (CAS 10 a0), the
+ *   limit widened by 8 binary64 ulp (airdata/_domains.py DERIVED_SLACK);
  *   rho = ps/(R sat) within the model's densities (else AD_OUT_OF_RANGE).
  * A negative qc within the noise band is read as zero and the status is
  * AD_IMPACT_PRESSURE_ZEROED, with valid outputs.  A NULL output pointer gives
@@ -64,7 +65,7 @@ static ad_status ad_chain_impact(ad_real ps, ad_real pt, ad_real noise_band, ad_
             st = AD_IMPACT_PRESSURE_ZEROED;
             q = (ad_real)0;
         }
-        if (((q / ps) > AD_RATIO_MAX) || ((q / AD_P0) > AD_RATIO_MAX)) {
+        if (((q / ps) > AD_RATIO_LIMIT) || ((q / AD_P0) > AD_RATIO_LIMIT)) {
             st = AD_OUT_OF_RANGE;
         }
     }

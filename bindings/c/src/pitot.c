@@ -8,13 +8,20 @@
  *
  * Special cases (every function): a NULL output pointer gives AD_INVALID_INPUT and
  * nothing is written; arguments are checked in order, then derived quantities; a bad
- * one gives its status and a NaN output.
+ * one gives its status and a NaN output.  Arguments are checked against their ranges
+ * exactly; derived Mach numbers and qc/ps, qc/p0 ratios against AD_MACH_LIMIT and
+ * AD_RATIO_LIMIT, the limits widened by 8 binary64 ulp (airdata/_domains.py
+ * DERIVED_SLACK; binary32 uses that value rounded to binary32, see ad_constants.h).
  */
 #include "ad_internal.h"
 
 /* Newton steps of the supersonic inversion: 3 suffice over 1 <= M <= 10 (shown for
  * binary64 by tests/test_pitot_solver.py); one in reserve.  The loop bound. */
 #define AD_NEWTON_STEPS 4
+
+/* Below this Mach number a Mach-to-Mach conversion is linear (ad_i_convert_mach):
+ * 2^-40, exact in both precisions (airdata/pitot.py TINY_MACH). */
+#define AD_TINY_MACH ((ad_real)0x1p-40)
 
 /*
  * PIT-1 kernel: qc/ps at Mach m >= 0.  Subsonic expm1(3.5 log1p(0.2 u)) and
@@ -41,36 +48,41 @@ static ad_real ad_phi(ad_real a, ad_real u)
     return a * ad_exp(AD_K_2P5 * ad_log1p(-(AD_K_0P2 + AD_K_1 / u) / AD_K_7P2));
 }
 
+/* Clamp of x into [lo, hi] (numpy clip): min(max(x, lo), hi). */
+static ad_real ad_clamp(ad_real x, ad_real lo, ad_real hi)
+{
+    const ad_real y = (x < lo) ? lo : x;
+    return (y > hi) ? hi : y;
+}
+
 /*
  * PIT-2 solver: u = M^2 >= 1 with Rayleigh pitot ratio pt/ps = r >= 1.2^3.5.
  * h(u) = u - phi(u) is increasing and convex on u >= 1; the root lies in
- * [1, u_max], u_max = (r/1.2)(7/7.2)^2.5.  Start u0 = u_max - 2.5/7 - 0.15/u_max
- * clipped to the bracket; AD_NEWTON_STEPS Newton steps, each replaced by bisection
- * when it leaves the bracket; result phi(u_N), which damps the error of u_N by
- * phi'(u) <= 0.42: within about 1 ulp.  Fixed loop bound, no early exit.
- * Binary32 caveat (the same algorithm as the reference): for the first few binary32
- * ratios above the sonic ratio the root rounds to the bracket end u = 1, Newton
- * candidates land just below it, every step falls back to bisection and M is off by
- * up to about 15 ulp (tests/test_cport_diff.py, strict xfail).
+ * [1, u_max], u_max = (r/1.2)(7/7.2)^2.5.  Start u0 = u_max - 2.5/7
+ * + x (-0.11 + x (0.0752 - 0.2316 x)), x = 1/u_max (relative error at most 5.5e-4,
+ * at M = 1), clamped to the bracket.  AD_NEWTON_STEPS Newton steps; each moves the
+ * bracket end on its side of the root to the iterate and is clamped into the
+ * bracket (in rounded arithmetic a step can leave it by a few ulp when the root
+ * lies at an end, M just above 1; clamping keeps the step's progress there).
+ * Result phi(u_N), which damps the error of u_N by phi'(u) <= 0.42: M within 2 ulp
+ * (airdata/pitot.py).  Fixed loop bound, no early exit.
  */
 static ad_real ad_supersonic_mach_squared(ad_real r)
 {
     const ad_real a = r / AD_K_1P2;
     ad_real hi = a * AD_PHI_INF;
     ad_real lo = AD_K_1;
-    ad_real u = hi - AD_K_5_14 - AD_K_0P15 / hi;
+    const ad_real x = AD_K_1 / hi;
+    ad_real u = ad_clamp((hi - AD_K_5_14) + x * (AD_K_S1 + x * (AD_K_S2 + x * AD_K_S3)),
+                         lo, hi);
     int step;
-    u = (u < lo) ? lo : u;
-    u = (u > hi) ? hi : u;
     for (step = 0; step < AD_NEWTON_STEPS; step++) {
         const ad_real phi = ad_phi(a, u);
         const ad_real g = u - phi;
         const ad_real dphi = phi * AD_K_2P5 / (u * (AD_K_7 * u - AD_K_1));
-        ad_real cand;
         hi = (g > (ad_real)0) ? u : hi;
         lo = (g < (ad_real)0) ? u : lo;
-        cand = u - g / (AD_K_1 - dphi);
-        u = ((cand >= lo) && (cand <= hi)) ? cand : AD_K_0P5 * (lo + hi);
+        u = ad_clamp(u - g / (AD_K_1 - dphi), lo, hi);
     }
     return ad_phi(a, u);
 }
@@ -90,6 +102,19 @@ ad_real ad_i_mach_from_ratio(ad_real x)
     return m;
 }
 
+/*
+ * SPD-1 kernel (airdata/pitot.py convert_mach): the Mach number whose qc/ps is
+ * x = k f(m), for the Mach number m of the same impact pressure at a static pressure
+ * k times smaller.  Below m = 2^-40 (AD_TINY_MACH) the linear limit m sqrt(k): the
+ * first neglected term is 0.125 m^2 |1 - k| relative, below 2^-60 for every k of the
+ * model (< 3e5), while m^2 >= 2^-80 would be needed by the general form, which
+ * underflows to a zero Mach number for tiny nonzero m.
+ */
+ad_real ad_i_convert_mach(ad_real m, ad_real k, ad_real x)
+{
+    return (m < AD_TINY_MACH) ? (m * ad_sqrt(k)) : ad_i_mach_from_ratio(x);
+}
+
 /* PIT-1: qc = ps f(M). */
 ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
 {
@@ -105,7 +130,7 @@ ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
     return st;
 }
 
-/* PIT-2: Mach number of (qc, ps); derived check qc/ps <= RATIO_MAX (Mach 10). */
+/* PIT-2: Mach number of (qc, ps); derived check qc/ps <= AD_RATIO_LIMIT (Mach 10). */
 ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
 {
     ad_status st;
@@ -119,13 +144,13 @@ ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
     }
     if (st == AD_OK) {
         x = qc / ps;
-        st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
+        st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *mach = (st == AD_OK) ? ad_i_mach_from_ratio(x) : ad_nan();
     return st;
 }
 
-/* PIT-3: qc = p0 f(cas/a0); derived check cas/a0 <= 10. */
+/* PIT-3: qc = p0 f(cas/a0); derived check cas/a0 <= AD_MACH_LIMIT (10). */
 ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc)
 {
     ad_status st;
@@ -136,13 +161,13 @@ ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc)
     st = ad_i_check(cas, AD_DOM_SPEED);
     if (st == AD_OK) {
         m = cas / AD_A0;
-        st = (m > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
+        st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *qc = (st == AD_OK) ? (AD_P0 * ad_i_ratio_from_mach(m)) : ad_nan();
     return st;
 }
 
-/* PIT-4: cas = a0 f^-1(qc/p0); derived check qc/p0 <= RATIO_MAX (CAS <= 10 a0). */
+/* PIT-4: cas = a0 f^-1(qc/p0); derived check qc/p0 <= AD_RATIO_LIMIT (CAS <= 10 a0). */
 ad_status ad_cas_from_impact_pressure(ad_real qc, ad_real *cas)
 {
     ad_status st;
@@ -153,7 +178,7 @@ ad_status ad_cas_from_impact_pressure(ad_real qc, ad_real *cas)
     st = ad_i_check(qc, AD_DOM_IMPACT_PRESSURE);
     if (st == AD_OK) {
         x = qc / AD_P0;
-        st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
+        st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_ratio(x)) : ad_nan();
     return st;

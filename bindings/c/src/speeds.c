@@ -4,7 +4,9 @@
  *
  * Special cases (every function): a NULL output pointer gives AD_INVALID_INPUT and
  * nothing is written; arguments are checked in order, then derived quantities; a bad
- * one gives its status and a NaN output.
+ * one gives its status and a NaN output.  Arguments are checked exactly; derived
+ * Mach numbers and qc/ps, qc/p0 ratios against AD_MACH_LIMIT and AD_RATIO_LIMIT
+ * (widened by 8 binary64 ulp, airdata/_domains.py DERIVED_SLACK; see pitot.c).
  */
 #include "ad_internal.h"
 
@@ -18,7 +20,10 @@ static ad_status ad_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id d
     return st;
 }
 
-/* SPD-1: qc = ps f(M), cas = a0 f^-1(qc/p0); derived check qc/p0 <= RATIO_MAX. */
+/*
+ * SPD-1: qc = ps f(M), cas = a0 f^-1(qc/p0); below M = 2^-40 the linear limit
+ * cas = a0 M sqrt(ps/p0) (ad_i_convert_mach).  Derived check qc/p0 <= AD_RATIO_LIMIT.
+ */
 ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas)
 {
     ad_status st;
@@ -29,33 +34,35 @@ ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas)
     st = ad_check2(mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
     if (st == AD_OK) {
         x = ps * ad_i_ratio_from_mach(mach) / AD_P0;
-        st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
+        st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_ratio(x)) : ad_nan();
+    *cas = (st == AD_OK) ? (AD_A0 * ad_i_convert_mach(mach, ps / AD_P0, x)) : ad_nan();
     return st;
 }
 
 /*
- * SPD-1 inverted: qc = p0 f(cas/a0), M = f^-1(qc/ps).  Derived checks in order:
- * cas/a0 <= 10, then qc/ps <= RATIO_MAX.
+ * SPD-1 inverted: qc = p0 f(cas/a0), M = f^-1(qc/ps); below cas/a0 = 2^-40 the
+ * linear limit M = (cas/a0) sqrt(p0/ps) (ad_i_convert_mach).  Derived checks in
+ * order: cas/a0 <= AD_MACH_LIMIT, then qc/ps <= AD_RATIO_LIMIT.
  */
 ad_status ad_mach_from_cas(ad_real cas, ad_real ps, ad_real *mach)
 {
     ad_status st;
     ad_real x = (ad_real)0;
+    ad_real m0 = (ad_real)0;
     if (mach == NULL) {
         return AD_INVALID_INPUT;
     }
     st = ad_check2(cas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
     if (st == AD_OK) {
-        const ad_real m0 = cas / AD_A0;
-        st = (m0 > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
+        m0 = cas / AD_A0;
+        st = (m0 > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
         if (st == AD_OK) {
             x = AD_P0 * ad_i_ratio_from_mach(m0) / ps;
-            st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
+            st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
         }
     }
-    *mach = (st == AD_OK) ? ad_i_mach_from_ratio(x) : ad_nan();
+    *mach = (st == AD_OK) ? ad_i_convert_mach(m0, AD_P0 / ps, x) : ad_nan();
     return st;
 }
 
@@ -71,7 +78,7 @@ ad_status ad_eas_from_mach(ad_real mach, ad_real ps, ad_real *eas)
     return st;
 }
 
-/* SPD-2 inverted: M = eas/(a0 sqrt(ps/p0)); derived check M <= 10. */
+/* SPD-2 inverted: M = eas/(a0 sqrt(ps/p0)); derived check M <= AD_MACH_LIMIT (10). */
 ad_status ad_mach_from_eas(ad_real eas, ad_real ps, ad_real *mach)
 {
     ad_status st;
@@ -82,7 +89,7 @@ ad_status ad_mach_from_eas(ad_real eas, ad_real ps, ad_real *mach)
     st = ad_check2(eas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
     if (st == AD_OK) {
         m = eas / (AD_A0 * ad_sqrt(ps / AD_P0));
-        st = (m > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
+        st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *mach = (st == AD_OK) ? m : ad_nan();
     return st;
@@ -100,7 +107,7 @@ ad_status ad_tas_from_mach(ad_real mach, ad_real sat, ad_real *tas)
     return st;
 }
 
-/* SPD-3 inverted: M = tas/sqrt(gamma R sat); derived check M <= 10. */
+/* SPD-3 inverted: M = tas/sqrt(gamma R sat); derived check M <= AD_MACH_LIMIT (10). */
 ad_status ad_mach_from_tas(ad_real tas, ad_real sat, ad_real *mach)
 {
     ad_status st;
@@ -111,7 +118,7 @@ ad_status ad_mach_from_tas(ad_real tas, ad_real sat, ad_real *mach)
     st = ad_check2(tas, AD_DOM_SPEED, sat, AD_DOM_TEMPERATURE);
     if (st == AD_OK) {
         m = tas / ad_sqrt(AD_GAMMA_R * sat);
-        st = (m > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
+        st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *mach = (st == AD_OK) ? m : ad_nan();
     return st;

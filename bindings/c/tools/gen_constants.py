@@ -16,6 +16,19 @@ binary32
     in 40-digit decimal arithmetic from the defining constants (the approach of
     ``airdata.profiles``), never by rounding the binary64 value a second time.
 
+Double-double (binary32: float-float) low parts
+    ``AD_R_LO``, ``AD_SUTH_BETA_LO`` and the per-layer ``tb_lo``, ``lapse_lo``,
+    ``pb_lo``: lo = nearest(x - hi) in the same precision, computed exactly (rational
+    arithmetic) from the 40-digit decimal x of ``Profile.exact`` and the hi part
+    written beside it, so hi + lo is x to about 2^-106 (binary64) or 2^-48
+    (binary32) relative (``airdata._dd.const``).
+Derived-quantity limits
+    ``AD_RATIO_LIMIT`` and ``AD_MACH_LIMIT``: RATIO_MAX and MACH_MAX widened by
+    ``airdata._domains.DERIVED_SLACK`` (8 units of binary64 roundoff).  binary64: the
+    reference's ``pitot.RATIO_LIMIT``/``MACH_LIMIT``; binary32: the same exactly
+    widened value rounded to binary32 (the slack is below half a binary32 ulp, so
+    these equal the binary32 RATIO_MAX and MACH_MAX: the check is exact there).
+
 All values are written as C99 hex-float literals.
 """
 
@@ -39,9 +52,10 @@ KERNEL_LITERALS = {
     "AD_K_0P7": ("0.7", "gamma/2"),
     "AD_K_1P2": ("1.2", "(gamma + 1)/2"),
     "AD_K_7P2": ("7.2", "Rayleigh pitot constant 2 gamma/(gamma - 1) + 0.2"),
-    "AD_K_0P15": ("0.15", "start-value coefficient of the supersonic solver"),
+    "AD_K_S1": ("-0.11", "start-value coefficient of the supersonic solver (x^1)"),
+    "AD_K_S2": ("0.0752", "start-value coefficient of the supersonic solver (x^2)"),
+    "AD_K_S3": ("-0.2316", "start-value coefficient of the supersonic solver (x^3)"),
     "AD_K_5_14": ("5/14", "2.5/7, start-value offset of the supersonic solver"),
-    "AD_K_0P5": ("0.5", "one half"),
     "AD_K_1": ("1", "one"),
     "AD_K_2P5": ("2.5", "exponent 1/(gamma - 1)"),
     "AD_K_3P5": ("3.5", "exponent gamma/(gamma - 1)"),
@@ -79,6 +93,42 @@ def round_binary(x: Fraction, bits: int) -> float:
 def f32(d: Decimal | str) -> float:
     """Binary32 value correctly rounded from a decimal."""
     return round_binary(Fraction(Decimal(d)), 24)
+
+
+def low_part(x: Decimal, hi: float, single: bool) -> float:
+    """lo = nearest(x - hi) in the precision of ``hi`` (exact rational difference)."""
+    return round_binary(Fraction(x) - Fraction(hi), 24 if single else 53)
+
+
+def low_parts(profile, single: bool, src: dict[str, object]) -> dict[str, object]:  # noqa: ANN001
+    """Double-double low parts of R, beta and the per-layer tb, lapse, pb."""
+    lay = src["layers"]
+    sca = src["scalars"]
+
+    def hi_of(v: object) -> float:
+        return f32(v) if single else float(v)  # type: ignore[arg-type]
+
+    rows = []
+    for i in range(7):
+        rows.append({key: low_part(profile.exact(name)[i], hi_of(lay[i][key]), single)
+                     for key, name in (("tb", "base_temperature"), ("lapse", "lapse_rate"),
+                                       ("pb", "base_pressure"))})
+    return {"AD_R_LO": low_part(profile.exact("R"), hi_of(sca["AD_R"]), single),
+            "AD_SUTH_BETA_LO": low_part(profile.exact("beta"), hi_of(sca["AD_SUTH_BETA"]),
+                                        single),
+            "layers": rows}
+
+
+def limits(profile, single: bool, ex: dict[str, object]) -> dict[str, float]:  # noqa: ANN001
+    """RATIO_MAX and MACH_MAX widened by DERIVED_SLACK (see the module docstring)."""
+    dom = _mod("airdata._domains")
+    pit = _mod("airdata.pitot")
+    if not single:
+        return {"AD_RATIO_LIMIT": pit.RATIO_LIMIT, "AD_MACH_LIMIT": pit.MACH_LIMIT}
+    widen = 1 + Fraction(dom.DERIVED_SLACK)
+    ratio = Fraction(ex["scalars"]["AD_RATIO_MAX"]) * widen  # type: ignore[index]
+    return {"AD_RATIO_LIMIT": round_binary(ratio, 24),
+            "AD_MACH_LIMIT": round_binary(Fraction(dom.MACH_MAX) * widen, 24)}
 
 
 def exact(profile) -> dict[str, object]:  # noqa: ANN001
@@ -209,6 +259,11 @@ def block(profile, single: bool) -> list[str]:  # noqa: ANN001
     src = ex if single else vals
     for name, value in src["scalars"].items():  # type: ignore[union-attr]
         lines.append(f"#define {name} {lit(conv(value), single)}")
+    lows = low_parts(profile, single, src)
+    for name in ("AD_R_LO", "AD_SUTH_BETA_LO"):
+        lines.append(f"#define {name} {lit(lows[name], single)}")
+    for name, value in limits(profile, single, ex).items():
+        lines.append(f"#define {name} {lit(value, single)}")
     for name, (text, what) in KERNEL_LITERALS.items():
         q = Fraction(text) if "/" in text else Fraction(Decimal(text))
         v = round_binary(q, 24) if single else round_binary(q, 53)
@@ -220,6 +275,8 @@ def block(profile, single: bool) -> list[str]:  # noqa: ANN001
     for i, row in enumerate(src["layers"]):  # type: ignore[arg-type]
         fields = ", ".join(lit(conv(row[key]), single) for key in
                            ("hb", "lapse", "tb", "pb", "m", "k", "c", "n", "sh", "rho_b", "kd"))
+        fields += ", " + ", ".join(lit(lows["layers"][i][key], single)  # type: ignore[index]
+                                   for key in ("tb", "lapse", "pb"))
         lines.append(f"#define AD_LAYER_{i} {{ {fields}, {row['gradient']} }}")
     return lines
 
@@ -239,7 +296,12 @@ def render() -> str:
         " *",
         " * Layer rows: { hb, lapse, tb, pb, m = L/Tb, k = g0/(R L), c = g0/(R Tb),",
         " *   n = -R L/g0, sh = -R Tb/g0, rho_b = pb/(R Tb), kd = -R L/(g0 + R L),",
-        " *   gradient }; unused entries of a layer are exact zeros.",
+        " *   tb_lo, lapse_lo, pb_lo, gradient }; unused entries of a layer are exact",
+        " *   zeros.  *_LO: double-double (binary32: float-float) low parts,",
+        " *   lo = nearest(x - hi) from the 40-digit decimal x.",
+        " * AD_RATIO_LIMIT, AD_MACH_LIMIT: limits of derived qc/ps, qc/p0 and Mach",
+        " *   numbers, widened by 8 binary64 ulp (airdata._domains.DERIVED_SLACK);",
+        " *   binary32: that binary64-based value rounded to binary32.",
         " */",
         "#ifndef AD_CONSTANTS_H",
         "#define AD_CONSTANTS_H",
