@@ -28,7 +28,7 @@ CAUTION = (
 #: Modules that add sub-commands: each has ``register(subparsers)``, which adds its
 #: parsers and sets ``func`` (taking the parsed namespace, returning the exit code).
 SUBCOMMAND_MODULES: tuple[str, ...] = (".commands", ".limits_commands", ".vectors.commands",
-                                        ".bench")
+                                        ".bench", ".portcheck.commands")
 
 
 def _cmd_demo(args: argparse.Namespace) -> int:

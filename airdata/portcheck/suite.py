@@ -1,0 +1,201 @@
+"""Reading a vector suite into arrays for a port check.
+
+Only what a check needs is read: the manifest, and the function files selected.  The
+manifest is checked against its schema, every selected file against its SHA-256 and
+size in the manifest and against its function schema, and every number's two forms
+(decimal and C99 hex float) must name the same binary64 value.  Any problem raises
+:class:`SuiteError` naming the file (and the case where there is one).
+
+An engineering and verification aid, not certified flight software.
+"""
+
+from __future__ import annotations
+
+import hashlib
+from collections.abc import Sequence
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+import numpy as np
+from numpy.typing import NDArray
+
+from ..vectors.catalogue import CATALOGUE
+from ..vectors.jsonio import VectorFileError, decode_number, load_json
+from ..vectors.schema import SCHEMA_VERSION, function_schema, manifest_schema, validate
+
+__all__ = ["SuiteError", "FunctionCases", "LoadedSuite", "load_cases", "B32_CODES"]
+
+#: ``binary32_check`` level -> small integer code used in the arrays.
+B32_CODES: dict[str, int] = {"full": 0, "lenient": 1, "skip": 2}
+
+_SPECS = {s.name: s for s in CATALOGUE}
+
+
+class SuiteError(ValueError):
+    """A vector suite is missing, malformed, or does not match its manifest."""
+
+
+@dataclass
+class FunctionCases:
+    """The cases of one function as arrays (one row per case).
+
+    Attributes
+    ----------
+    name : str
+        Function name of the reference (the C function is ``c_function``).
+    c_function : str
+        Name of the C function in ``airdata.h``.
+    inputs : list of (name, kind)
+        Argument names in C order and their kind (``"real"`` or ``"flag"``).
+    outputs : list of str
+        Output names in order (fields of the C output struct when there are several).
+    ids : list of str
+        Stable case ids.
+    x : ndarray, shape (n, n_inputs)
+        Inputs (flags as 0.0/1.0).
+    expected, scale : ndarray, shape (n, n_outputs)
+        Expected outputs and their condition scales (NaN where expected is NaN).
+    status : ndarray of int, shape (n,)
+        Expected status.
+    b32 : ndarray of int, shape (n,)
+        ``binary32_check`` as a code of :data:`B32_CODES`.
+    """
+
+    name: str
+    c_function: str
+    inputs: list[tuple[str, str]]
+    outputs: list[str]
+    ids: list[str]
+    x: NDArray[np.float64]
+    expected: NDArray[np.float64]
+    scale: NDArray[np.float64]
+    status: NDArray[np.int64]
+    b32: NDArray[np.int64]
+
+    @property
+    def count(self) -> int:
+        """Number of cases."""
+        return len(self.ids)
+
+
+@dataclass
+class LoadedSuite:
+    """A suite read for a check: its tolerance and the selected functions' cases."""
+
+    root: Path
+    suite_version: str
+    profile: str
+    k: float
+    eps_binary64: float
+    eps_binary32: float
+    functions: dict[str, FunctionCases] = field(default_factory=dict)
+
+
+def _sha(data: bytes) -> str:
+    return hashlib.sha256(data).hexdigest()
+
+
+def _num(pair: Any, where: str) -> float:
+    try:
+        return decode_number(pair, where)
+    except ValueError as exc:
+        raise SuiteError(str(exc)) from None
+
+
+def _function_cases(rel: str, doc: dict[str, Any]) -> FunctionCases:
+    inputs = [(str(a["name"]), str(a["kind"])) for a in doc["inputs"]]
+    outputs = [str(o["name"]) for o in doc["outputs"]]
+    cases = doc["cases"]
+    n = len(cases)
+    x = np.empty((n, len(inputs)))
+    expected = np.empty((n, len(outputs)))
+    scale = np.empty((n, len(outputs)))
+    status = np.empty(n, dtype=np.int64)
+    b32 = np.empty(n, dtype=np.int64)
+    ids = []
+    for i, case in enumerate(cases):
+        cid = str(case["id"])
+        ids.append(cid)
+        where = f"{rel}: case {cid}"
+        for j, (name, kind) in enumerate(inputs):
+            v = case["inputs"][name]
+            x[i, j] = float(v) if kind == "flag" else _num(v, f"{where}: input {name}")
+        for j, name in enumerate(outputs):
+            expected[i, j] = _num(case["expected"][name], f"{where}: expected {name}")
+            scale[i, j] = _num(case["scale"][name], f"{where}: scale {name}")
+        status[i] = int(case["status"])
+        b32[i] = B32_CODES[case["binary32_check"]]
+    return FunctionCases(str(doc["function"]), str(doc["c_function"]), inputs, outputs, ids,
+                         x, expected, scale, status, b32)
+
+
+def load_cases(root: str | Path = "vectors", only: Sequence[str] | None = None) -> LoadedSuite:
+    """Read a suite (all functions, or those named in ``only``) for a port check.
+
+    Parameters
+    ----------
+    root : str or Path
+        Suite directory holding ``manifest.json``.
+    only : sequence of str, optional
+        Function names to read; every name must be in the manifest.
+
+    Returns
+    -------
+    LoadedSuite
+        Tolerance constants and the cases of the selected functions, in manifest order.
+
+    Raises
+    ------
+    SuiteError
+        Missing directory or manifest, schema violation, checksum mismatch, unknown
+        function, or an unreadable number; the message names the file.
+    """
+    rootp = Path(root)
+    if not rootp.is_dir():
+        raise SuiteError(f"{rootp}: no vector suite here (not a directory); build one with "
+                         "'airdata vectors build' or pass --suite DIR")
+    try:
+        manifest = load_json(rootp / "manifest.json")
+    except VectorFileError as exc:
+        raise SuiteError(str(exc)) from None
+    if not isinstance(manifest, dict) or manifest.get("schema_version") != SCHEMA_VERSION:
+        got = manifest.get("schema_version") if isinstance(manifest, dict) else None
+        raise SuiteError(f"{rootp / 'manifest.json'}: schema_version {got!r} is not "
+                         f"supported (this airdata reads {SCHEMA_VERSION})")
+    errors = validate(manifest, manifest_schema())
+    if errors:
+        raise SuiteError(f"{rootp / 'manifest.json'}: schema violation: {errors[0]}")
+    entries = {e["function"]: e for e in manifest["functions"]}
+    names = list(entries) if not only else list(dict.fromkeys(only))
+    unknown = [n for n in names if n not in entries]
+    if unknown:
+        raise SuiteError(f"function(s) {', '.join(unknown)} not in the suite; it has: "
+                         f"{', '.join(entries)}")
+    tol = manifest["tolerance"]
+    suite = LoadedSuite(rootp, str(manifest["suite_version"]), str(manifest["profile"]["name"]),
+                        float(tol["k"]), _num(tol["eps_binary64"], "manifest eps_binary64"),
+                        _num(tol["eps_binary32"], "manifest eps_binary32"))
+    for name in names:
+        entry = entries[name]
+        rel = entry["path"]
+        path = rootp / rel
+        if not path.is_file():
+            raise SuiteError(f"{path}: listed in the manifest but missing")
+        data = path.read_bytes()
+        if len(data) != entry["bytes"] or _sha(data) != entry["sha256"]:
+            raise SuiteError(f"{path}: checksum mismatch (SHA-256 {_sha(data)}, "
+                             f"{len(data)} bytes; the manifest says {entry['sha256']}, "
+                             f"{entry['bytes']} bytes)")
+        spec = _SPECS.get(name)
+        if spec is None:
+            raise SuiteError(f"{path}: function {name!r} is not known to this airdata")
+        try:
+            doc = load_json(path)
+        except VectorFileError as exc:
+            raise SuiteError(str(exc)) from None
+        errors = validate(doc, function_schema(spec), limit=1)
+        if errors:
+            raise SuiteError(f"{path}: schema violation: {errors[0]}")
+        suite.functions[name] = _function_cases(rel, doc)
+    return suite
