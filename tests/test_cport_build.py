@@ -7,6 +7,7 @@ message, unless AIRDATA_REQUIRE_TOOLCHAINS=1, which turns the skip into a failur
 from __future__ import annotations
 
 import importlib.util
+import math
 import os
 import shutil
 import subprocess
@@ -22,7 +23,7 @@ C_DIR = ROOT / "bindings" / "c"
 SRC = sorted((C_DIR / "src").glob("*.c"))
 DRIVER = C_DIR / "tests" / "driver.c"
 WARN = ["-std=c99", "-Wall", "-Wextra", "-Wpedantic", "-Wconversion", "-Wdouble-promotion",
-        "-Wshadow", "-Werror", "-O2"]
+        "-Wshadow", "-Werror", "-O2", "-ffp-contract=off"]  # dd.c needs no contraction
 INC = [f"-I{C_DIR / 'include'}", f"-I{C_DIR / 'src'}"]
 PRECISIONS = {"double": [], "single": ["-DAIRDATA_SINGLE"]}
 PROFILES = {"icao": [], "us1976": ["-DAIRDATA_PROFILE_US1976"]}
@@ -105,6 +106,99 @@ def test_binary64_constants_are_the_references() -> None:
 
     assert _literal("AD_RATIO_MAX", single=False) == pit.RATIO_MAX
     assert _literal("AD_RATIO_SONIC", single=False) == pit.RATIO_SONIC
+
+
+def _layer_rows(single: bool) -> list[list[float]]:
+    """The AD_LAYER_i initialisers of the ICAO block, as numbers (gradient dropped)."""
+    text = (C_DIR / "src" / "ad_constants.h").read_text()
+    icao = text.split("#else /* ICAO")[1]
+    block = icao.split("#else")[0] if single else icao.split("#else")[1]
+    rows = []
+    for line in block.splitlines():
+        if line.startswith("#define AD_LAYER_") and "{" in line:
+            fields = line.split("{")[1].split("}")[0].split(",")
+            rows.append([float.fromhex(f.strip().strip("()").rstrip("f")) for f in fields[:-1]])
+    assert len(rows) == 7
+    return rows
+
+
+def _icao_base_pressures() -> list[mpmath.mpf]:
+    """Layer base pressures from the ICAO defining constants, by mpmath at 50 digits.
+
+    ICAO Doc 7488/3: p0 = 101325 Pa, T0 = 288.15 K, g0 = 9.80665 m/s2,
+    R = 287.05287 J/(kg K), layer bases and lapse rates of the 1993 table (from
+    memory); barometric equation per layer (gradient: power law, isothermal: exp).
+    """
+    g0, r = mpmath.mpf("9.80665"), mpmath.mpf("287.05287")
+    hb = [0, 11000, 20000, 32000, 47000, 51000, 71000]
+    lapse = ["-0.0065", "0", "0.001", "0.0028", "0", "-0.0028", "-0.002"]
+    t, p = mpmath.mpf("288.15"), mpmath.mpf(101325)
+    out = [p]
+    for i in range(6):
+        lap, dh = mpmath.mpf(lapse[i]), hb[i + 1] - hb[i]
+        t1 = t + lap * dh
+        p = p * (t1 / t) ** (-g0 / (r * lap)) if lap else p * mpmath.exp(-g0 * dh / (r * t))
+        out.append(p)
+        t = t1
+    return out
+
+
+@pytest.mark.parametrize("single", [False, True], ids=["binary64", "binary32"])
+def test_double_double_low_parts_from_the_exact_constants(single: bool) -> None:
+    # hi + lo must be the exact constant to within half an ulp of lo (lo = nearest(x -
+    # hi)); exact values: ICAO Doc 7488/3 R = 287.05287 and Sutherland beta = 1.458e-6
+    # (from memory), T_b and L_b of the layer table, base pressures by mpmath.
+    bits = 24 if single else 53
+    rows = _layer_rows(single)
+    temps = ["288.15", "216.65", "216.65", "228.65", "270.65", "270.65", "214.65"]
+    lapse = ["-0.0065", "0", "0.001", "0.0028", "0", "-0.0028", "-0.002"]
+    with mpmath.workdps(50):
+        cases = [(_literal("AD_R", single), _literal("AD_R_LO", single),
+                  mpmath.mpf("287.05287")),
+                 (_literal("AD_SUTH_BETA", single), _literal("AD_SUTH_BETA_LO", single),
+                  mpmath.mpf("1.458e-6"))]
+        for i, pb in enumerate(_icao_base_pressures()):
+            row = rows[i]  # hb, lapse, tb, pb, m, k, c, n, sh, rho_b, kd, tb_lo, lapse_lo, pb_lo
+            cases += [(row[2], row[11], mpmath.mpf(temps[i])),
+                      (row[1], row[12], mpmath.mpf(lapse[i])), (row[3], row[13], pb)]
+        for hi, lo, x in cases:
+            rest = x - mpmath.mpf(hi)
+            ulp = math.ldexp(1.0, math.frexp(hi)[1] - bits) if hi else 0.0
+            assert abs(lo) <= ulp / 2
+            if rest == 0:
+                assert lo == 0
+                continue
+            # lo is rest rounded to the precision: within half an ulp of lo
+            assert abs(mpmath.mpf(lo) - rest) <= abs(rest) * 2.0**-bits, (hi, lo, x)
+
+
+def test_binary64_low_parts_are_the_references() -> None:
+    from airdata.atmosphere import dd_tables, layer_table  # noqa: PLC0415
+    from airdata.profiles import ICAO  # noqa: PLC0415
+
+    t, d = layer_table(ICAO), dd_tables(ICAO)
+    rows = _layer_rows(False)
+    assert [r[13] for r in rows] == list(t.pb_lo)
+    assert [r[11] for r in rows] == list(d.tb[1])
+    assert [r[12] for r in rows] == list(d.lapse[1])
+    assert _literal("AD_R_LO", False) == d.r_gas[1]
+    assert _literal("AD_SUTH_BETA_LO", False) == d.beta[1]
+
+
+def test_derived_limits() -> None:
+    # binary64: the reference's widened limits; binary32: RATIO_MAX (NACA Report 1135
+    # eq. 100 at M = 10, by mpmath) times 1 + 8 2^-52, rounded to binary32, and 10.
+    import airdata.pitot as pit  # noqa: PLC0415
+
+    assert _literal("AD_RATIO_LIMIT", False) == pit.RATIO_LIMIT
+    assert _literal("AD_MACH_LIMIT", False) == pit.MACH_LIMIT
+    assert _literal("AD_MACH_LIMIT", False) > 10.0
+    with mpmath.workdps(60):
+        ratio = 120 * (mpmath.mpf(720) / 699) ** mpmath.mpf("2.5") - 1
+        ratio *= 1 + 8 * mpmath.mpf(2) ** -52
+    with mpmath.workprec(24):
+        assert _literal("AD_RATIO_LIMIT", True) == float(+ratio)
+    assert _literal("AD_MACH_LIMIT", True) == 10.0
 
 
 @pytest.mark.parametrize("profile", list(PROFILES))

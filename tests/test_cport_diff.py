@@ -118,6 +118,7 @@ def _chain_inputs(a: list[F64]) -> list[F64]:
         return [a[0], a[0] * (1.0 + a[1]), a[2], a[3], a[4]]
 
 
+_P0 = ICAO.p0
 _ATM = ("temperature", "pressure", "density", "speed_of_sound", "dynamic_viscosity",
         "kinematic_viscosity")
 _AIR = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", "cas", "eas", "tas",
@@ -322,6 +323,61 @@ def test_solver_just_above_sonic_ratio(precision: str) -> None:
                 * (mpmath.mpf("7.2") * mm**2 / (7 * mm**2 - 1)) ** mpmath.mpf("2.5") - r,
                 mpmath.mpf(1) + mpmath.mpf(xi - RATIO_SONIC))
             assert abs(float(m) - float(exact)) <= 2 * EPS[precision]
+
+
+@pytest.mark.parametrize("precision", ["double", "single"])
+def test_tiny_mach_conversions_keep_their_size(precision: str) -> None:
+    # Below Mach 2^-40 the conversions are linear: cas = a0 M sqrt(ps/p0) and
+    # M = (cas/a0) sqrt(p0/ps), the first-order term of NACA Report 1135 eq. 44 (the
+    # next one is 0.125 M^2 relative); mpmath at 50 digits with ICAO Doc 7488/3
+    # a0 = sqrt(1.4 R T0), R = 287.05287, T0 = 288.15, p0 = 101325 (from memory).
+    import mpmath  # noqa: PLC0415
+
+    machs = [1e-300, 1e-160, 1e-100, 1e-20, 2.0**-41] if precision == "double" else [
+        1e-30, 1e-25, 1e-15, 2.0**-41]
+    machs = [float(np.float32(m)) if precision == "single" else m for m in machs]
+    ps = [101325.0, 2000.0, 160000.0]
+    eps = EPS[precision]
+    with mpmath.workdps(50):
+        a0 = mpmath.sqrt(mpmath.mpf("1.4") * mpmath.mpf("287.05287") * mpmath.mpf("288.15"))
+        for m, p in itertools.product(machs, ps):
+            k = mpmath.sqrt(mpmath.mpf(p) / 101325)
+            cas = float(cport.cas_from_mach(m, p, precision=precision))
+            assert abs(cas / float(a0 * mpmath.mpf(m) * k) - 1) <= 4 * eps, (m, p, cas)
+            c = float(np.float32(float(a0 * m))) if precision == "single" else float(a0 * m)
+            back = float(cport.mach_from_cas(c, p, precision=precision))
+            assert abs(back / float(mpmath.mpf(c) / a0 / k) - 1) <= 4 * eps, (c, p, back)
+
+
+_DERIVED = {  # function: (input from the derived value v, derived value, its range end)
+    "mach_from_impact_pressure": (lambda v: (v, 1.0), lambda a: a[0] / a[1], RATIO_MAX),
+    "cas_from_impact_pressure": (lambda v: (v * _P0,), lambda a: a[0] / _P0, RATIO_MAX),
+    "impact_pressure_from_cas": (lambda v: (v * ICAO.a0,), lambda a: a[0] / ICAO.a0,
+                                 dom.MACH_MAX),
+    "mach_from_eas": (lambda v: (v * ICAO.a0 * math.sqrt(0.5), _P0 / 2),
+                      lambda a: a[0] / (ICAO.a0 * math.sqrt(a[1] / _P0)), dom.MACH_MAX),
+}
+
+
+@pytest.mark.parametrize("name", list(_DERIVED))
+def test_derived_limits_match_the_reference_in_binary64(name: str) -> None:
+    # Derived qc/ps, qc/p0 and Mach numbers are checked against their range end widened
+    # by 8 binary64 ulp (airdata._domains.DERIVED_SLACK): around the end, the port's
+    # statuses must be the reference's, some derived values just above the end must
+    # be accepted and those beyond the slack refused.
+    make, derived, end = _DERIVED[name]
+    ref_fn, port_fn = getattr(airdata, name), getattr(cport, name)
+    accepted_above = refused = 0
+    for j in range(-24, 25):
+        args = make(end * (1.0 + j * 2.0**-52))
+        got = float(port_fn(*args, precision="double", strict=False))
+        want = float(ref_fn(*args, strict=False))
+        assert math.isnan(got) == math.isnan(want), (name, args)
+        v = derived(args)
+        accepted_above += int(v > end and not math.isnan(got))
+        refused += int(math.isnan(got))
+        assert not (v > end * (1.0 + 9 * 2.0**-52) and not math.isnan(got)), (name, args)
+    assert accepted_above > 0 and refused > 0, (accepted_above, refused)
 
 
 # ---------------------------------------------------------------------------------
