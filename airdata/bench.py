@@ -98,8 +98,8 @@ def _supersonic(rng: np.random.Generator, n: int) -> tuple[F64, F64]:
 def chain_inputs(rng: np.random.Generator, n: int) -> tuple[F64, F64, F64]:
     """(ps, pt, tat) of an invented flight envelope for the chain (demo data).
 
-    Pressure altitude uniform in -1000 .. 30000 m, Mach uniform in 0 .. 3 (about a
-    third supersonic), day temperature the standard one shifted by -30 .. +30 K, probe
+    Pressure altitude uniform in -1000 .. 30000 m, Mach uniform in 0 .. 3 (two thirds
+    supersonic), day temperature the standard one shifted by -30 .. +30 K, probe
     recovery 1.
     """
     from .altimetry import pressure_at_altitude
