@@ -171,9 +171,9 @@ def judge(fc: FunctionCases, precision: str, y: NDArray[np.float64], st: NDArray
             reasons.append(f"status {status_name(st[i])}, expected {status_name(fc.status[i])}")
         for j, out in enumerate(fc.outputs):
             if nan_bad[i, j]:
-                reasons.append(f"{out}: got {y[i, j]!r}, expected {want[i, j]!r}")
+                reasons.append(f"{out}: got {float(y[i, j])!r}, expected {float(want[i, j])!r}")
             elif value_bad[i, j]:
-                reasons.append(f"{out}: got {y[i, j]!r}, expected {want[i, j]!r} "
+                reasons.append(f"{out}: got {float(y[i, j])!r}, expected {float(want[i, j])!r} "
                                f"({ratio[i, j]:.3g} of the bound)")
         res.failures.append(CaseFailure(fc.ids[i], _inputs(fc, int(i)), reasons))
     return res
