@@ -64,9 +64,7 @@ static void test_atmosphere(void)
 /*
  * Error-free transformations: with a = b = 1 + 2^-s (s = 30 binary64, 12 binary32)
  * the product 1 + 2^(1-s) + 2^-2s needs 2s + 1 bits, so fl(ab) = 1 + 2^(1-s) and the
- * error term is exactly 2^-2s; 1 + 2^-2s as a sum leaves 2^-2s the same way.  The
- * first check fails when the port is compiled with fused multiply-adds
- * (gcc -mfma -ffp-contract=fast), which break Dekker's split (ad_dd.h).
+ * error term is exactly 2^-2s; 1 + 2^-2s as a sum leaves 2^-2s the same way.
  */
 static void test_double_double(void)
 {
