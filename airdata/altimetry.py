@@ -11,7 +11,13 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from ._inputs import ArrayLike, FloatOrArray, Inputs
-from .atmosphere import LayerTable, layer_of_altitude, layer_table, standard_pressure
+from .atmosphere import (
+    LayerTable,
+    count_bases,
+    layer_of_altitude,
+    layer_table,
+    standard_pressure,
+)
 from .profiles import Profile, get_profile
 from .status import Status
 
@@ -26,13 +32,13 @@ __all__ = [
 F64 = NDArray[np.float64]
 
 
-def layer_of_ratio(x: F64, base: F64) -> NDArray[np.intp]:
+def layer_of_ratio(x: F64, base: F64) -> NDArray[np.uint8]:
     """Layer index for a quantity decreasing with altitude (pressure or density).
 
     ``base`` holds the quantity at each layer base, decreasing.  Layer i holds
     ``base[i+1] < x <= base[i]``; layer 0 extends below sea level, the top layer up.
     """
-    return np.clip(np.searchsorted(-base, -x, side="right") - 1, 0, len(base) - 1)
+    return count_bases([x <= b for b in base[1:]])
 
 
 def altitude_of_pressure(p: F64, t: LayerTable) -> F64:

@@ -67,12 +67,24 @@ _PHI_INF = float(np.exp(2.5 * np.log1p(-0.2 / 7.2)))
 
 
 def ratio_from_mach(m: F64) -> F64:
-    """PIT-1 kernel: qc/ps as a function of Mach number (both branches)."""
-    u = m * m
-    sub = np.expm1(3.5 * np.log1p(0.2 * u))
-    us = np.maximum(u, 1.0)  # keeps the unused supersonic branch finite
-    sup = (1.2 * us) * np.exp(2.5 * np.log1p((0.2 * us + 1.0) / (7.0 * us - 1.0))) - 1.0
-    return np.where(m <= 1.0, sub, sup)
+    """PIT-1 kernel: qc/ps as a function of Mach number (both branches).
+
+    Each branch is evaluated only on its own elements.
+    """
+    sup = m > 1.0
+    if not sup.any():
+        return _ratio_subsonic(m)
+    out = np.empty_like(m)
+    sub = ~sup
+    out[sub] = _ratio_subsonic(m[sub])
+    u = m[sup] * m[sup]
+    out[sup] = (1.2 * u) * np.exp(2.5 * np.log1p((0.2 * u + 1.0) / (7.0 * u - 1.0))) - 1.0
+    return out
+
+
+def _ratio_subsonic(m: F64) -> F64:
+    """PIT-1, M <= 1: (1 + 0.2 M^2)^3.5 - 1 as expm1(3.5 log1p(0.2 M^2))."""
+    return np.expm1(3.5 * np.log1p(0.2 * (m * m)))
 
 
 #: qc/ps at M = 1 as computed by the subsonic kernel: the switch between branches.
@@ -112,13 +124,24 @@ def supersonic_mach_squared(r: F64) -> F64:
 
 
 def mach_from_ratio(x: F64) -> F64:
-    """PIT-2 kernel: Mach number from qc/ps = ``x`` (in [0, RATIO_MAX])."""
-    sub = np.sqrt(5.0 * np.expm1(np.log1p(x) / 3.5))
-    sup_mask = x > RATIO_SONIC
-    if not sup_mask.any():
-        return sub
-    r = 1.0 + np.where(sup_mask, x, 1.0)
-    return np.where(sup_mask, np.sqrt(supersonic_mach_squared(r)), sub)
+    """PIT-2 kernel: Mach number from qc/ps = ``x`` (in [0, RATIO_MAX]).
+
+    The closed form up to RATIO_SONIC, the solver above it; each only on its own
+    elements.
+    """
+    sup = x > RATIO_SONIC
+    if not sup.any():
+        return _mach_subsonic(x)
+    out = np.empty_like(x)
+    sub = ~sup
+    out[sub] = _mach_subsonic(x[sub])
+    out[sup] = np.sqrt(supersonic_mach_squared(1.0 + x[sup]))
+    return out
+
+
+def _mach_subsonic(x: F64) -> F64:
+    """PIT-2, qc/ps <= RATIO_SONIC: sqrt(5 ((1 + x)^(1/3.5) - 1)) with log1p/expm1."""
+    return np.sqrt(5.0 * np.expm1(np.log1p(x) / 3.5))
 
 
 #: Below this Mach number a conversion between the Mach numbers of one impact pressure
