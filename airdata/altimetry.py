@@ -32,7 +32,7 @@ __all__ = [
 F64 = NDArray[np.float64]
 
 
-def layer_of_ratio(x: F64, base: F64) -> NDArray[np.uint8]:
+def layer_of_ratio(x: F64, base: F64) -> NDArray[np.intp]:
     """Layer index for a quantity decreasing with altitude (pressure or density).
 
     ``base`` holds the quantity at each layer base, decreasing.  Layer i holds
@@ -49,10 +49,7 @@ def altitude_of_pressure(p: F64, t: LayerTable) -> F64:
     """
     i = layer_of_ratio(p, t.pb)
     lr = np.log(p / t.pb[i])
-    grad = t.gradient[i]
-    m = np.where(grad, t.m[i], 1.0)
-    step = np.where(grad, np.expm1(t.n[i] * lr) / m, t.sh[i] * lr)
-    return t.hb[i] + step
+    return t.hb[i] + (np.expm1(t.n[i] * lr) / t.m_div[i] + t.sh_iso[i] * lr)
 
 
 def pressure_altitude(
@@ -314,10 +311,7 @@ def altitude_of_density(p: F64, temp: F64, rho: F64, t: LayerTable) -> F64:
     """ALT-4 kernel: density altitude of (p, temp), whose density is ``rho``."""
     i = layer_of_ratio(rho, t.rho_b)
     lr = np.log((p / t.pb[i]) * (t.tb[i] / temp))
-    grad = t.gradient[i]
-    m = np.where(grad, t.m[i], 1.0)
-    step = np.where(grad, np.expm1(t.kd[i] * lr) / m, t.sh[i] * lr)
-    return t.hb[i] + step
+    return t.hb[i] + (np.expm1(t.kd[i] * lr) / t.m_div[i] + t.sh_iso[i] * lr)
 
 
 def density_range(prof: Profile) -> tuple[float, float]:

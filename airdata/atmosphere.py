@@ -33,7 +33,10 @@ class LayerTable(NamedTuple):
     ``n = -R L/g0`` (exponent of the inverse); ``sh = -R Tb/g0`` (inverse isothermal
     scale); ``rho_b`` base densities; ``kd = -R L/(g0 + R L)`` (density inverse);
     ``pb_lo`` the low parts of the base pressures as double-doubles (pb + pb_lo is the
-    base pressure to about 1e-32 relative).
+    base pressure to about 1e-32 relative); ``m_div`` is m in gradient layers and 1 in
+    isothermal ones, ``sh_iso`` is sh in isothermal layers and 0 in gradient ones, so the
+    inverse kernels need no branch: hb + (expm1(n lr)/m_div + sh_iso lr), where the term
+    of the other layer kind is an exact zero.
     """
 
     hb: F64
@@ -49,6 +52,8 @@ class LayerTable(NamedTuple):
     rho_b: F64
     kd: F64
     pb_lo: F64
+    m_div: F64
+    sh_iso: F64
 
 
 @cache
@@ -69,13 +74,15 @@ def layer_table(profile: Profile) -> LayerTable:
     rho_b = pb / (r * tb)
     kd = np.where(grad, -(r * lapse) / (g0 + r * lapse), 0.0)
     pb_lo = np.array([float(p - Decimal(float(p))) for p in profile.exact("base_pressure")])
-    tables = (hb, lapse, tb, pb, grad, m, k, c, n, sh, rho_b, kd, pb_lo)
+    m_div = np.where(grad, m, 1.0)
+    sh_iso = np.where(grad, 0.0, sh)
+    tables = (hb, lapse, tb, pb, grad, m, k, c, n, sh, rho_b, kd, pb_lo, m_div, sh_iso)
     for a in tables:
         a.setflags(write=False)
     return LayerTable(*tables)
 
 
-def count_bases(mask_of_base: list[NDArray[np.bool_]]) -> NDArray[np.uint8]:
+def count_bases(mask_of_base: list[NDArray[np.bool_]]) -> NDArray[np.intp]:
     """Layer index as the number of layer bases (above the first) an element has passed.
 
     Six comparisons and byte-wide additions: ten times cheaper than a binary search
@@ -84,20 +91,20 @@ def count_bases(mask_of_base: list[NDArray[np.bool_]]) -> NDArray[np.uint8]:
     i = mask_of_base[0].view(np.uint8).copy()
     for m in mask_of_base[1:]:
         i += m.view(np.uint8)
-    return i
+    return i.astype(np.intp)
 
 
-def layer_of_altitude(h: F64, t: LayerTable) -> NDArray[np.uint8]:
+def layer_of_altitude(h: F64, t: LayerTable) -> NDArray[np.intp]:
     """ATM-1: layer i holds hb[i] <= h < hb[i+1]; layer 0 extends below sea level."""
     return count_bases([h >= b for b in t.hb[1:]])
 
 
-def standard_temperature(h: F64, i: NDArray[np.uint8], t: LayerTable) -> F64:
+def standard_temperature(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
     """ATM-2: T = Tb + L (h - hb)."""
     return t.tb[i] + t.lapse[i] * (h - t.hb[i])
 
 
-def pressure_dd(h: F64, i: NDArray[np.uint8], t: LayerTable) -> tuple[F64, F64]:
+def pressure_dd(h: F64, i: NDArray[np.intp], t: LayerTable) -> tuple[F64, F64]:
     """ATM-3 kernel as a double-double: p = (pb + pb_lo) exp(e).
 
     e = -(k log1p(m dh) + c dh) covers both branches: in a gradient layer ``c = 0`` and
@@ -110,7 +117,7 @@ def pressure_dd(h: F64, i: NDArray[np.uint8], t: LayerTable) -> tuple[F64, F64]:
     return dd.mul((t.pb[i], t.pb_lo[i]), (e, np.zeros_like(e)))
 
 
-def standard_pressure(h: F64, i: NDArray[np.uint8], t: LayerTable) -> F64:
+def standard_pressure(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
     """ATM-3: the standard pressure at geopotential altitude h in layer i, Pa."""
     return pressure_dd(h, i, t)[0]
 
@@ -135,7 +142,7 @@ def dd_tables(prof: Profile) -> DDTables:
                     dd.const(prof.exact("beta")), dd.const(prof.exact("R")))
 
 
-def state_dd(h: F64, dT: F64, i: NDArray[np.uint8], t: LayerTable,
+def state_dd(h: F64, dT: F64, i: NDArray[np.intp], t: LayerTable,
              prof: Profile) -> tuple[F64, F64, F64, F64, F64]:
     """ATM-2..ATM-6 kernel in double-double: T, p, rho, mu, nu.
 
