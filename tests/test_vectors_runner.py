@@ -27,7 +27,7 @@ needs_port = pytest.mark.skipif(not PORT, reason="bindings/c/src has no port sou
 
 def _compile(out: Path, sources: list[Path], *flags: str) -> None:
     assert CC is not None
-    cmd = [CC, *STRICT, "-O1", *flags, f"-I{INCLUDE}", f"-I{VECTORS_C}",
+    cmd = [CC, *STRICT, "-O1", "-ffp-contract=off", *flags, f"-I{INCLUDE}", f"-I{VECTORS_C}",
            *[str(s) for s in sources], "-lm", "-o", str(out)]
     r = subprocess.run(cmd, capture_output=True, text=True, timeout=600)
     assert r.returncode == 0, r.stderr[-3000:]
@@ -86,10 +86,6 @@ def test_bundled_port_passes_every_vector_in_binary64(tmp_path: Path) -> None:
     assert "22 functions: all passed" in r.stdout
 
 
-#: Functions the bundled port fails in binary32 (see the xfail reason below).
-KNOWN_BINARY32 = {"mach_from_impact_pressure", "air_data"}
-
-
 @pytest.fixture(scope="module")
 def run32(tmp_path_factory: pytest.TempPathFactory) -> subprocess.CompletedProcess[str]:
     """The runner built with the bundled port in binary32, run once."""
@@ -100,18 +96,12 @@ def run32(tmp_path_factory: pytest.TempPathFactory) -> subprocess.CompletedProce
     return _run(exe)
 
 
-def test_bundled_port_binary32_passes_all_but_known_functions(
+def test_bundled_port_binary32_reports_every_function(
         run32: subprocess.CompletedProcess[str]) -> None:
     rows = _summary(run32.stdout)
     assert set(rows) == {s.name for s in CATALOGUE}
-    bad = {name for name, (_, failed) in rows.items() if failed}
-    assert bad <= KNOWN_BINARY32, run32.stdout[-3000:]
 
 
-@pytest.mark.xfail(strict=True, reason=(
-    "bundled port, binary32: mach_from_impact_pressure near qc/ps = RATIO_SONIC (M = 1) gives "
-    "0x1.00001ep+0 (30 binary32 ulp), 1.04 of the k = 8 bound; air_data dynamic_pressure "
-    "there 1.09 of the bound"))
 def test_bundled_port_passes_every_vector_in_binary32(
         run32: subprocess.CompletedProcess[str]) -> None:
     assert run32.returncode == 0, run32.stdout[-3000:]
