@@ -21,10 +21,12 @@ form  u = phi(u) = (r/1.2) ((7 - 1/u)/7.2)^2.5  for u = M^2 >= 1, r = pt/ps:
 * phi is increasing and concave for u > 1/4 (phi'' has the sign of 1/(2u) - 2), so
   h(u) = u - phi(u) is increasing and convex on u >= 1;
 * u_max = (r/1.2)(7/7.2)^2.5 = phi(infinity) bounds the root above and u = 1 bounds it
-  below: the bracket [1, u_max] always holds the root;
+  below: the bracket [1, u_max] always holds the root, and its lower end rises to
+  every iterate found below the root;
 * Newton's method on a convex increasing function converges monotonically from the
-  right of the root, and a step from the left lands on the right; a step is clamped
-  into the bracket, which only matters for rounding at the bracket's ends;
+  right of the root, and a step from the left lands on the right (below u_max); a
+  step is clamped at the bracket's lower end, which only matters for rounding when
+  the root lies there;
 * the start u0 = u_max - 2.5/7 + x (-0.11 + x (0.0752 - 0.2316 x)), x = 1/u_max, is
   the large-u expansion of the root (u* = u_max - 2.5/7 - O(1/u_max)) with the
   O(1/u_max) terms fitted by least squares over 1 <= M <= 10; its relative error is at
@@ -101,12 +103,15 @@ def supersonic_mach_squared(r: F64) -> F64:
     """PIT-2 solver: u = M^2 >= 1 with Rayleigh pitot ratio pt/ps = ``r`` >= 1.2^3.5.
 
     See the module docstring for the convergence argument.  Works on every element
-    with a fixed number of steps; a bracket [lo, hi] around the root is kept (each
-    step moves the end on its side of the root to the current iterate) and a Newton
-    step is clamped into it.  In exact arithmetic Newton never leaves the bracket
-    (convex increasing h); in rounded arithmetic it can, by a few ulp, when the root
-    lies at an end of the bracket (M just above 1): clamping keeps the step's
-    progress there, where bisection would throw it away.
+    with a fixed number of steps.  The root lies in the bracket [lo, u_max]:
+    u_max = (r/1.2)(7/7.2)^2.5 is an analytic upper bound that no iterate exceeds (the
+    start is below it, since its polynomial correction is negative for every x > 0;
+    Newton on the convex increasing h decreases from the right of the root and lands
+    between the root and u_max from the left, which tests/test_pitot_solver.py checks
+    over its whole sweep), and lo starts at 1 and rises to every iterate found left of
+    the root.  Each step is clamped at lo: in exact arithmetic it never goes below, in
+    rounded arithmetic it can, by a few ulp, when the root lies at lo (M just above 1),
+    and the clamp keeps the step's progress there.
     """
     out = np.empty_like(r)
     for start in range(0, r.size, _BLOCK):
@@ -122,18 +127,28 @@ _BLOCK = 65536
 def _solve_block(r: F64) -> F64:
     """The solver on one block (see :func:`supersonic_mach_squared`)."""
     a = r / 1.2
-    hi = a * _PHI_INF
-    lo = np.ones_like(hi)
-    x = 1.0 / hi
-    u = np.clip(hi - 2.5 / 7.0 + x * (-0.11 + x * (0.0752 + x * -0.2316)), lo, hi)
-    for _ in range(NEWTON_STEPS):
-        phi = a * np.exp(2.5 * np.log1p(-(0.2 + 1.0 / u) / 7.2))
+    return _phi(a, newton_iterate(a, NEWTON_STEPS))
+
+
+def _phi(a: F64, u: F64) -> F64:
+    """The fixed-point map phi(u) = a ((7 - 1/u)/7.2)^2.5, a = r/1.2."""
+    return a * np.exp(2.5 * np.log1p(-(0.2 + 1.0 / u) / 7.2))
+
+
+def newton_iterate(a: F64, steps: int) -> F64:
+    """The Newton iterate u_steps of the supersonic solver for a = r/1.2 (exposed so
+    that tests can check every iterate against the bracket)."""
+    u_max = a * _PHI_INF
+    x = 1.0 / u_max
+    lo = np.ones_like(u_max)
+    u = np.maximum(u_max - 2.5 / 7.0 + x * (-0.11 + x * (0.0752 + x * -0.2316)), lo)
+    for _ in range(steps):
+        phi = _phi(a, u)
         g = u - phi
-        np.copyto(hi, u, where=g > 0.0)
         np.copyto(lo, u, where=g < 0.0)
         dphi = phi * 2.5 / (u * (7.0 * u - 1.0))
-        u = np.clip(u - g / (1.0 - dphi), lo, hi)
-    return a * np.exp(2.5 * np.log1p(-(0.2 + 1.0 / u) / 7.2))
+        u = np.maximum(u - g / (1.0 - dphi), lo)
+    return u
 
 
 def mach_from_ratio(x: F64) -> F64:

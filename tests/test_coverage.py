@@ -335,8 +335,6 @@ def test_probe_reaches_every_line_in_both_precisions(coverage: dict[str, Coverag
     assert cov.percent("branches") >= PROBE_BRANCH_FLOOR, cov.missed[:30]
 
 
-@pytest.mark.xfail(strict=True, reason="pitot.c ad_clamp: the upper clamp (y > hi) is taken "
-                   "by no vector in either precision (measured 475/476 branches)")
 def test_probe_reaches_every_branch_in_both_precisions(coverage: dict[str, Coverage]) -> None:
     cov = coverage["both vectors+probe"]
     assert cov.percent("branches") == 100.0, cov.missed[:30]

@@ -172,6 +172,21 @@ def test_bracket_invariant(ratios: F64, by_steps: dict[int, F64]) -> None:
     assert np.all(np.isfinite(u))
 
 
+def test_no_iterate_exceeds_the_upper_bound(ratios: F64) -> None:
+    """Every Newton iterate u_0 .. u_6 stays below u_max = (r/1.2)(7/7.2)^2.5.
+
+    This is why the solver clamps only at the lower end of its bracket: the upper
+    clamp would be a branch nothing reaches (its C form was never taken under gcov,
+    over every binary32 ratio of the range).
+    """
+    a = ratios / 1.2
+    u_max = a * pitot._PHI_INF
+    for n in range(7):
+        u = pitot.newton_iterate(a, n)
+        assert np.all(u <= u_max), (n, float(ratios[np.argmax(u - u_max)]).hex())
+        assert np.all(u >= 1.0)
+
+
 def test_monotone_in_ratio(ratios: F64, by_steps: dict[int, F64]) -> None:
     """Larger pitot ratio, larger Mach: never decreasing beyond the solver's jitter."""
     order = np.argsort(ratios, kind="stable")

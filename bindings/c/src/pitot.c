@@ -48,41 +48,41 @@ static ad_real ad_phi(ad_real a, ad_real u)
     return a * ad_exp(AD_K_2P5 * ad_log1p(-(AD_K_0P2 + AD_K_1 / u) / AD_K_7P2));
 }
 
-/* Clamp of x into [lo, hi] (numpy clip): min(max(x, lo), hi). */
-static ad_real ad_clamp(ad_real x, ad_real lo, ad_real hi)
+/* max(x, lo) (numpy maximum for non-NaN x). */
+static ad_real ad_at_least(ad_real x, ad_real lo)
 {
-    const ad_real y = (x < lo) ? lo : x;
-    return (y > hi) ? hi : y;
+    return (x < lo) ? lo : x;
 }
 
 /*
  * PIT-2 solver: u = M^2 >= 1 with Rayleigh pitot ratio pt/ps = r >= 1.2^3.5.
- * h(u) = u - phi(u) is increasing and convex on u >= 1; the root lies in
- * [1, u_max], u_max = (r/1.2)(7/7.2)^2.5.  Start u0 = u_max - 2.5/7
- * + x (-0.11 + x (0.0752 - 0.2316 x)), x = 1/u_max (relative error at most 5.5e-4,
- * at M = 1), clamped to the bracket.  AD_NEWTON_STEPS Newton steps; each moves the
- * bracket end on its side of the root to the iterate and is clamped into the
- * bracket (in rounded arithmetic a step can leave it by a few ulp when the root
- * lies at an end, M just above 1; clamping keeps the step's progress there).
+ * h(u) = u - phi(u) is increasing and convex on u >= 1; the root lies in the
+ * bracket [lo, u_max], u_max = (r/1.2)(7/7.2)^2.5, lo = 1 at first.  Start
+ * u0 = u_max - 2.5/7 + x (-0.11 + x (0.0752 - 0.2316 x)), x = 1/u_max (relative
+ * error at most 5.5e-4, at M = 1; below u_max since the correction is negative for
+ * every x > 0), raised to lo.  AD_NEWTON_STEPS Newton steps; each raises lo to the
+ * iterate when it lies below the root and is clamped at lo (in rounded arithmetic a
+ * step can fall a few ulp below lo when the root lies there, M just above 1; the
+ * clamp keeps the step's progress).  No iterate exceeds u_max (convexity; checked
+ * over the whole sweep of tests/test_pitot_solver.py), so there is no upper clamp.
  * Result phi(u_N), which damps the error of u_N by phi'(u) <= 0.42: M within 2 ulp
  * (airdata/pitot.py).  Fixed loop bound, no early exit.
  */
 static ad_real ad_supersonic_mach_squared(ad_real r)
 {
     const ad_real a = r / AD_K_1P2;
-    ad_real hi = a * AD_PHI_INF;
+    const ad_real u_max = a * AD_PHI_INF;
+    const ad_real x = AD_K_1 / u_max;
     ad_real lo = AD_K_1;
-    const ad_real x = AD_K_1 / hi;
-    ad_real u = ad_clamp((hi - AD_K_5_14) + x * (AD_K_S1 + x * (AD_K_S2 + x * AD_K_S3)),
-                         lo, hi);
+    ad_real u = ad_at_least((u_max - AD_K_5_14) + x * (AD_K_S1 + x * (AD_K_S2 + x * AD_K_S3)),
+                            lo);
     int step;
     for (step = 0; step < AD_NEWTON_STEPS; step++) {
         const ad_real phi = ad_phi(a, u);
         const ad_real g = u - phi;
         const ad_real dphi = phi * AD_K_2P5 / (u * (AD_K_7 * u - AD_K_1));
-        hi = (g > (ad_real)0) ? u : hi;
         lo = (g < (ad_real)0) ? u : lo;
-        u = ad_clamp(u - g / (AD_K_1 - dphi), lo, hi);
+        u = ad_at_least(u - g / (AD_K_1 - dphi), lo);
     }
     return ad_phi(a, u);
 }
