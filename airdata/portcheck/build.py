@@ -39,8 +39,21 @@ __all__ = ["PortBuildError", "PortSpec", "Port", "bundled_port", "build_port", "
 PRECISIONS: dict[str, bool] = {"double": False, "single": True}
 
 _PKG_ROOT = Path(__file__).resolve().parents[2]
-#: The bundled port of this checkout.
-BUNDLED_C = _PKG_ROOT / "bindings" / "c"
+
+
+def _bundled_c_dir() -> Path:
+    """``bindings/c`` of this checkout (an editable install) or, after ``pip install .``
+    (which installs the compiled port but not its C sources), of the working directory
+    when that is a clone of the repository."""
+    for root in (_PKG_ROOT, Path.cwd()):
+        candidate = root / "bindings" / "c"
+        if (candidate / "include" / "airdata.h").is_file():
+            return candidate
+    return _PKG_ROOT / "bindings" / "c"
+
+
+#: The bundled port: its interface (include/) and sources (src/).
+BUNDLED_C = _bundled_c_dir()
 
 
 class PortBuildError(RuntimeError):
@@ -85,7 +98,8 @@ def bundled_port() -> PortSpec:
     sources = tuple(sorted(src.glob("*.c")))
     if not sources:
         raise PortBuildError("the bundled C port is not available in this installation "
-                             f"({src} has no C sources); pass --source or --library", "")
+                             f"({src} has no C sources): run from a clone of the repository "
+                             "or pass --source or --library", "")
     return PortSpec("bundled", sources, None, (src,),
                     extra_compile_args=("-std=c99", "-ffp-contract=off"))
 
