@@ -18,6 +18,16 @@ from .altimetry import (
 )
 from .atmosphere import Atmosphere, atmosphere, geometric_altitude, geopotential_altitude
 from .chain import AirData, air_data
+from .limits import (
+    ceiling_margin,
+    crossover_altitude,
+    max_operating_cas,
+    max_operating_mach,
+    stall_cas,
+    stall_eas,
+    stall_mach,
+    stall_tas,
+)
 from .pitot import (
     cas_from_impact_pressure,
     impact_pressure_from_cas,
@@ -48,5 +58,7 @@ __all__ = [
     "impact_pressure_from_mach", "mach_from_cas", "mach_from_eas",
     "mach_from_impact_pressure", "mach_from_tas", "pressure_altitude",
     "pressure_at_altitude", "sat_from_tat", "tas_from_mach", "tat_from_sat",
+    "stall_eas", "stall_mach", "stall_cas", "stall_tas", "crossover_altitude",
+    "max_operating_cas", "max_operating_mach", "ceiling_margin",
     "__version__",
 ]

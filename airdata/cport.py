@@ -37,6 +37,7 @@ from numpy.typing import NDArray
 from . import _domains as dom
 from . import altimetry as _alt
 from . import chain as _chain
+from . import limits as _lim
 from . import pitot as _pit
 from . import speeds as _spd
 from . import temperature as _tmp
@@ -56,6 +57,8 @@ __all__ = [
     "mach_from_impact_pressure", "impact_pressure_from_cas", "cas_from_impact_pressure",
     "cas_from_mach", "mach_from_cas", "eas_from_mach", "mach_from_eas", "tas_from_mach",
     "mach_from_tas", "dynamic_pressure", "sat_from_tat", "tat_from_sat", "air_data",
+    "stall_eas", "stall_mach", "stall_cas", "stall_tas", "crossover_altitude",
+    "max_operating_cas", "max_operating_mach", "ceiling_margin",
 ]
 
 #: Precision name -> (extension module, numpy dtype of ``ad_real``).
@@ -78,6 +81,14 @@ _DOMAINS: dict[str, tuple[int, Callable[[], Domain]]] = {
     "pressure": (9, lambda: dom.pressure(ICAO)),
     "setting": (10, lambda: dom.setting(ICAO)),
     "total_pressure": (11, lambda: _chain._TOTAL_PRESSURE),
+    "noise_band": (12, lambda: _chain._NOISE),
+    "weight": (13, lambda: _lim.WEIGHT),
+    "wing_area": (14, lambda: _lim.WING_AREA),
+    "cl_max": (15, lambda: _lim.CL_MAX),
+    "load_factor": (16, lambda: _lim.LOAD_FACTOR),
+    "cas_limit": (17, lambda: _lim.CAS_LIMIT),
+    "mach_limit": (18, lambda: _lim.MACH_LIMIT),
+    "subsonic_mach_limit": (19, lambda: _lim.SUBSONIC_MACH_LIMIT),
 }
 
 _ERRORS = (int(Status.INVALID_INPUT), int(Status.OUT_OF_RANGE), int(Status.NO_CONVERGENCE))
@@ -455,3 +466,99 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     status = b.status.astype(np.int8)
     return AirData(**cols, status=int(status[0]) if b.scalar else status.reshape(b.shape),
                    profile=prof.name)
+
+
+# ------------------------------------------------------------------ limits (LIM-1 .. LIM-5)
+
+
+def _wing(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike
+          ) -> dict[str, tuple[ArrayLike, str]]:
+    return {"weight": (weight, "weight"), "wing_area": (wing_area, "wing_area"),
+            "cl_max": (cl_max, "cl_max")}
+
+
+def stall_eas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike,
+              load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+              strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.stall_eas` (LIM-1); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("stall_eas", lambda *a: _lim.stall_eas(*a, profile=prof), strict,
+                   precision, {**_wing(weight, wing_area, cl_max),
+                               "load_factor": (load_factor, "load_factor")})
+
+
+def stall_mach(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
+               load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+               strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.stall_mach` (LIM-2); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("stall_mach", lambda *a: _lim.stall_mach(*a, profile=prof), strict,
+                   precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
+                               "load_factor": (load_factor, "load_factor")})
+
+
+def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
+              load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+              strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.stall_cas` (LIM-2); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("stall_cas", lambda *a: _lim.stall_cas(*a, profile=prof), strict,
+                   precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
+                               "load_factor": (load_factor, "load_factor")})
+
+
+def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
+              sat: ArrayLike, load_factor: ArrayLike = 1.0, *,
+              profile: Profile | str | None = None, strict: bool = True,
+              precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.stall_tas` (LIM-2); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("stall_tas", lambda *a: _lim.stall_tas(*a, profile=prof), strict,
+                   precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
+                               "sat": (sat, "temperature"),
+                               "load_factor": (load_factor, "load_factor")})
+
+
+def crossover_altitude(cas_limit: ArrayLike, mach_limit: ArrayLike, *,
+                       profile: Profile | str | None = None, strict: bool = True,
+                       precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.crossover_altitude` (LIM-3); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("crossover_altitude",
+                   lambda *a: _lim.crossover_altitude(*a, profile=prof), strict, precision,
+                   {"cas_limit": (cas_limit, "cas_limit"),
+                    "mach_limit": (mach_limit, "subsonic_mach_limit")})
+
+
+def _max_operating(cname: str, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike,
+                   profile: Profile | str | None, strict: bool,
+                   precision: str) -> FloatOrArray:
+    prof = _check_profile(profile)
+    ref = getattr(_lim, cname)
+    return _simple(cname, lambda *a: ref(*a, profile=prof), strict, precision,
+                   {"ps": (ps, "pressure"), "cas_limit": (cas_limit, "cas_limit"),
+                    "mach_limit": (mach_limit, "mach_limit")})
+
+
+def max_operating_cas(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
+                      profile: Profile | str | None = None, strict: bool = True,
+                      precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.max_operating_cas` (LIM-4); ``precision`` as above."""
+    return _max_operating("max_operating_cas", ps, cas_limit, mach_limit, profile, strict,
+                          precision)
+
+
+def max_operating_mach(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
+                       profile: Profile | str | None = None, strict: bool = True,
+                       precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.max_operating_mach` (LIM-4); ``precision`` as above."""
+    return _max_operating("max_operating_mach", ps, cas_limit, mach_limit, profile, strict,
+                          precision)
+
+
+def ceiling_margin(ps: ArrayLike, ceiling: ArrayLike, *, profile: Profile | str | None = None,
+                   strict: bool = True, precision: str = "double") -> FloatOrArray:
+    """Port of :func:`airdata.ceiling_margin` (LIM-5); ``precision`` as above."""
+    prof = _check_profile(profile)
+    return _simple("ceiling_margin", lambda *a: _lim.ceiling_margin(*a, profile=prof),
+                   strict, precision, {"ps": (ps, "pressure"), "ceiling": (ceiling, "altitude")})

@@ -12,6 +12,8 @@ mpmath at 50 significant digits:
   Report 1135, eq. 44) and the Rayleigh pitot formula
   pt/ps = ((gamma+1)/2 M^2)^(gamma/(gamma-1)) ((gamma+1)/(2 gamma M^2 - (gamma-1)))^(1/(gamma-1))
   (NACA Report 1135, eq. 100), gamma = 1.4;
+* lift equation n W = q S CLmax with q = rho0 EAS^2 / 2 (the definition of EAS) for
+  the stall speeds; the maximum operating speed as the lower of a CAS and a Mach limit;
 * EAS = M a0 sqrt(ps/p0), TAS = M sqrt(gamma R SAT), q = gamma/2 ps M^2,
   TAT = SAT (1 + r (gamma-1)/2 M^2) (NACA Report 1135, eq. 43 and 46, from memory);
 * altimeter setting in the U.S. National Weather Service form
@@ -49,6 +51,8 @@ __all__ = [
     "mach_from_impact_pressure", "impact_pressure_from_cas", "cas_from_impact_pressure",
     "cas_from_mach", "mach_from_cas", "eas_from_mach", "mach_from_eas", "tas_from_mach",
     "mach_from_tas", "dynamic_pressure", "tat_from_sat", "sat_from_tat", "air_data",
+    "stall_eas", "stall_mach", "stall_cas", "stall_tas", "crossover_altitude",
+    "max_operating_cas", "max_operating_mach", "ceiling_margin",
     "reference_and_scale", "condition_scaled_error",
 ]
 
@@ -408,6 +412,68 @@ def sat_from_tat(tat: Real, mach: Real, recovery: Real = 1) -> Real:
     """SAT = TAT / (1 + r (gamma-1)/2 M^2), K."""
     m = mp.mpf(mach)
     return mp.mpf(tat) / (1 + mp.mpf(recovery) * _HALF_GM1 * m * m)
+
+
+# ------------------------------------------------------------------------------- limits
+# Lift equation L = n W = q S CLmax with the dynamic pressure of equivalent airspeed
+# q = rho0 eas^2 / 2 (definition of EAS); the speeds of that EAS by the relations
+# above (NACA Report 1135 eqs. 44 and 100); altitudes by the standard atmosphere
+# (U.S. Standard Atmosphere 1976 eqs. 33a/33b; ICAO Doc 7488/3).
+
+
+def stall_eas(weight: Real, wing_area: Real, cl_max: Real, load_factor: Real = 1,
+              profile: RefProfile | str = "icao") -> Real:
+    """eas = sqrt(2 n W / (rho0 S CLmax)), m/s."""
+    p = _prof(profile)
+    return mp.sqrt(2 * mp.mpf(load_factor) * mp.mpf(weight)
+                   / (p.rho0 * mp.mpf(wing_area) * mp.mpf(cl_max)))
+
+
+def stall_mach(weight: Real, wing_area: Real, cl_max: Real, ps: Real, load_factor: Real = 1,
+               profile: RefProfile | str = "icao") -> Real:
+    """Mach number of the stall EAS at ps."""
+    return mach_from_eas(stall_eas(weight, wing_area, cl_max, load_factor, profile), ps,
+                         profile)
+
+
+def stall_cas(weight: Real, wing_area: Real, cl_max: Real, ps: Real, load_factor: Real = 1,
+              profile: RefProfile | str = "icao") -> Real:
+    """CAS of the stall Mach number at ps, m/s."""
+    m = stall_mach(weight, wing_area, cl_max, ps, load_factor, profile)
+    return cas_from_mach(m, ps, profile)
+
+
+def stall_tas(weight: Real, wing_area: Real, cl_max: Real, ps: Real, sat: Real,
+              load_factor: Real = 1, profile: RefProfile | str = "icao") -> Real:
+    """TAS of the stall Mach number at the temperature sat, m/s."""
+    m = stall_mach(weight, wing_area, cl_max, ps, load_factor, profile)
+    return tas_from_mach(m, sat, profile)
+
+
+def crossover_altitude(cas_limit: Real, mach_limit: Real,
+                       profile: RefProfile | str = "icao") -> Real:
+    """Pressure altitude where the impact pressures of both limits agree:
+    p0 f(cas/a0) = ps f(M), h = H(ps), m."""
+    p = _prof(profile)
+    ps = impact_pressure_from_cas(cas_limit, p) / pitot_ratio(mach_limit)
+    return pressure_altitude(ps, p)
+
+
+def max_operating_cas(ps: Real, cas_limit: Real, mach_limit: Real,
+                      profile: RefProfile | str = "icao") -> Real:
+    """The lower of the CAS limit and the CAS of the Mach limit at ps, m/s."""
+    return min(mp.mpf(cas_limit), cas_from_mach(mach_limit, ps, profile))
+
+
+def max_operating_mach(ps: Real, cas_limit: Real, mach_limit: Real,
+                       profile: RefProfile | str = "icao") -> Real:
+    """The lower of the Mach limit and the Mach number of the CAS limit at ps."""
+    return min(mp.mpf(mach_limit), mach_from_cas(cas_limit, ps, profile))
+
+
+def ceiling_margin(ps: Real, ceiling: Real, profile: RefProfile | str = "icao") -> Real:
+    """ceiling - H(ps), m."""
+    return mp.mpf(ceiling) - pressure_altitude(ps, profile)
 
 
 # -------------------------------------------------------------------------------- chain

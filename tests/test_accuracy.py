@@ -445,6 +445,7 @@ def build_cases() -> dict[str, Case]:
             oracle.mach_from_tas,
             lambda tas, sat, c=c: tas / np.sqrt(1.4 * c.R * sat) <= 10.0 * (1 - MARGIN)))
         cases.append(_air_data_case(name))
+        cases += _limit_cases(c)
 
     c = consts("icao")
     p = pressure_col(c)
@@ -480,6 +481,109 @@ def build_cases() -> dict[str, Case]:
                                                         "recovery": rec}),
                        oracle.sat_from_tat, pass_profile=False))
     return {case.id: case for case in cases}
+
+
+def _wing_cols() -> dict[str, Column]:
+    """Weight, wing area, CLmax: the ends of their ranges, tiny values; log-uniform."""
+    return {
+        "weight": Column([1.0e7, 1.0, 1.0e-3, 1.0e-100, 6.0e5], _log_uniform(1.0e-3, 1.0e7)),
+        "wing_area": Column([2000.0, 1.0, 1.0e-3, 1.0e-50, 120.0], _log_uniform(1.0e-2, 2000.0)),
+        "cl_max": Column([10.0, 1.0, 1.0e-3, 1.0e-50, 2.4],
+                         _mixture(_uniform(0.1, 10.0), _log_uniform(1.0e-3, 10.0))),
+    }
+
+
+def _load_col() -> Column:
+    """Load factor: 1, the top of its range, tiny values; uniform or exactly 1."""
+    return Column([1.0, 10.0, 1.0e-3, 1.0e-50, 2.5],
+                  _mixture(_uniform(0.1, 10.0), lambda r, k: np.ones(k)))
+
+
+def _stall_eas64(weight: F64, wing_area: F64, cl_max: F64, load_factor: F64, c: Consts) -> F64:
+    """LIM-1 in binary64, for choosing sample points only."""
+    rho0 = c.p0 / (c.R * c.T0)
+    return np.sqrt(2.0 * load_factor * weight / (rho0 * wing_area * cl_max))
+
+
+def _limit_cases(c: Consts) -> list[Case]:
+    """The limit functions (airdata/limits.py, LIM-1 .. LIM-5) under profile ``c``."""
+    name = c.name
+    wing, load = _wing_cols(), _load_col()
+    p_col, h_col, temp = pressure_col(c), altitude_col(c), temperature_col()
+    top = 1 - MARGIN
+
+    def stall_ok(w: F64, s: F64, cl: F64, n: F64, ps: F64 | None = None) -> NDArray[np.bool_]:
+        eas = _stall_eas64(w, s, cl, n, c)
+        ok = eas <= 4000.0 * top
+        if ps is not None:
+            m = eas / (c.a0 * np.sqrt(ps / c.p0))
+            ok &= (m <= 10.0 * top) & (ps * _pitot_ratio(m) / c.p0 <= RATIO_M10 * top)
+        return ok
+
+    def stall_sample(extra: dict[str, Column]) -> Sampler:
+        cols = {**wing, **extra, "load_factor": load}
+        return lambda rng, n: _combine(rng, n, cols)
+
+    stall_in = ("weight", "wing_area", "cl_max")
+    out = [
+        _case("stall_eas", name, (*stall_in, "load_factor"), stall_sample({}),
+              oracle.stall_eas, stall_ok),
+        _case("stall_mach", name, (*stall_in, "ps", "load_factor"),
+              stall_sample({"ps": p_col}), oracle.stall_mach,
+              lambda w, s, cl, ps, n: stall_ok(w, s, cl, n, ps)),
+        _case("stall_cas", name, (*stall_in, "ps", "load_factor"),
+              stall_sample({"ps": p_col}), oracle.stall_cas,
+              lambda w, s, cl, ps, n: stall_ok(w, s, cl, n, ps)),
+        _case("stall_tas", name, (*stall_in, "ps", "sat", "load_factor"),
+              stall_sample({"ps": p_col, "sat": temp}), oracle.stall_tas,
+              lambda w, s, cl, ps, sat, n: stall_ok(w, s, cl, n, ps)),
+    ]
+
+    def crossover_sample(rng: np.random.Generator, n: int) -> dict[str, F64]:
+        # A crossover altitude (uniform over the model) and a Mach limit in (0, 1), and
+        # the CAS limit whose crossover that is (library used to choose points only).
+        cols = {"h": Column([*c.hb[1:], c.h_lo * top, c.h_hi * top, 0.0], h_col.draw),
+                "mach_limit": Column([math.nextafter(1.0, 0.0), 0.999, 0.5, 1e-3],
+                                     _mixture(_uniform(0.3, 1.0), _log_uniform(1e-3, 1.0)))}
+        x = _combine(rng, n, cols)
+        ps = np.asarray(airdata.pressure_at_altitude(x["h"], profile=name))
+        cas = np.asarray(airdata.cas_from_mach(x["mach_limit"], ps, profile=name,
+                                               strict=False))
+        return {"cas_limit": cas, "mach_limit": x["mach_limit"]}
+
+    def crossover_ok(cas: F64, m: F64) -> NDArray[np.bool_]:
+        ps = c.p0 * _pitot_ratio(cas / c.a0) / _pitot_ratio(m)
+        return ((cas <= 10.0 * c.a0 * top) & (m < 1.0) & (ps >= c.p_lo / top)
+                & (ps <= c.p_hi * top))
+
+    out.append(_case("crossover_altitude", name, ("cas_limit", "mach_limit"),
+                     crossover_sample, oracle.crossover_altitude, crossover_ok))
+
+    cas_col = Column([c.a0, 10.0 * c.a0 * top, 1e-6, 1.0, 150.0],
+                     _mixture(_uniform(30.0, 700.0), _log_uniform(1e-3, 10.0 * c.a0 * top)))
+    mach_lim = Column([1.0, 10.0, 1e-6, 0.82, *_near([1.0])],
+                      _mixture(_uniform(0.2, 3.0), _log_uniform(1e-6, 10.0)))
+
+    def max_op_sample(rng: np.random.Generator, n: int) -> dict[str, F64]:
+        # Rows at the crossover pressure of a few (CAS, Mach) pairs and either side.
+        rows = []
+        for cas, m in ((175.0, 0.82), (130.0, 0.6), (250.0, 0.9), (900.0, 3.0)):
+            px = c.p0 * float(_pitot_ratio(np.array(cas / c.a0))
+                              / _pitot_ratio(np.array(m)))
+            rows += [(v, cas, m) for v in _near([px], 3) if c.p_lo <= v <= c.p_hi]
+        return _combine(rng, n, {"ps": p_col, "cas_limit": cas_col, "mach_limit": mach_lim},
+                        rows)
+
+    def max_op_ok(ps: F64, cas: F64, m: F64) -> NDArray[np.bool_]:
+        return cas <= 10.0 * c.a0 * top
+
+    for fn in ("max_operating_cas", "max_operating_mach"):
+        out.append(_case(fn, name, ("ps", "cas_limit", "mach_limit"), max_op_sample,
+                         getattr(oracle, fn), max_op_ok))
+    out.append(_case("ceiling_margin", name, ("ps", "ceiling"),
+                     lambda rng, n: _combine(rng, n, {"ps": p_col, "ceiling": h_col}),
+                     oracle.ceiling_margin))
+    return out
 
 
 def _altimeter_setting_case(c: Consts) -> Case:

@@ -83,6 +83,19 @@ BAD_CALLS: list[tuple[str, tuple[Any, ...], dict[str, Any]]] = [
     ("air_data", (1e3, 9e6, 288.0), {}),
     ("air_data", (150000.0, 150000.0, 60.0), {}),
     ("air_data", (5e4, 6e4, 260.0, 1.0, 1000.0), {}),
+    ("stall_eas", (-1.0, 50.0, 1.5), {}),
+    ("stall_eas", (1e5, 50.0, [1.5, 0.0]), {}),
+    ("stall_eas", (1e7, 1e-6, 1e-6), {}),
+    ("stall_mach", (1e5, 50.0, 1.5, [1e5, 0.5]), {}),
+    ("stall_cas", (1e5, 50.0, 1.5, 1e5, -2.0), {}),
+    ("stall_cas", (7.9e6, 1.0, 1.0, 177000.0), {}),
+    ("stall_tas", (1e5, 50.0, 1.5, 1e5, 20.0), {}),
+    ("crossover_altitude", (160.0, 1.0), {}),
+    ("crossover_altitude", (3500.0, 0.8), {}),
+    ("crossover_altitude", ([150.0, 400.0], 0.3), {}),
+    ("max_operating_cas", (5e4, 3500.0, 0.8), {}),
+    ("max_operating_mach", (5e4, 150.0, 0.0), {}),
+    ("ceiling_margin", (5e4, 1e5), {}),
 ]
 
 

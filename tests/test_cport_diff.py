@@ -63,6 +63,14 @@ mpmath's rounded to binary64, so binary64 rows of 0 mean every result equalled i
     sat_from_tat                     0.00       0.55       0.00       0.59
     tat_from_sat                     0.00       0.61       0.00       0.53
     air_data                         1.25       1.58       0.65       1.17
+    stall_eas                        0.00       0.41       0.00       0.36
+    stall_mach                       0.00       0.61       0.00       0.37
+    stall_cas                        0.57       0.79       0.46       0.60
+    stall_tas                        0.00       0.68       0.00       0.38
+    crossover_altitude               0.69       0.81       0.48       0.81
+    max_operating_cas                0.70       0.72       0.32       0.85
+    max_operating_mach               0.52       0.76       0.31       0.53
+    ceiling_margin                   0.68       0.85       0.58       0.50
     ==========================  =========  =========  =========  =========
 """
 
@@ -131,6 +139,14 @@ KINDS = {
     "ratio": Kind(1e-7, 140.0, _around(0.0, RATIO_SONIC, RATIO_MAX, 1e-7), log=True),
     # (pt - ps)/ps for the chain
     "pt_ratio": Kind(-2e-3, 140.0, _around(0.0, RATIO_SONIC, RATIO_MAX, -1e-3)),
+    # the limit functions' own arguments (airdata/limits.py)
+    "weight": Kind(1e-3, 2.0e7, _around(1.0e7, 1.0), log=True),
+    "wing_area": Kind(1e-2, 3000.0, _around(2000.0, 1.0), log=True),
+    "cl_max": Kind(0.05, 12.0, _around(10.0, 1.0)),
+    "load_factor": Kind(0.05, 12.0, _around(10.0, 1.0)),
+    "cas_limit": Kind(1.0, 4200.0, _around(ICAO.a0, dom.MACH_MAX * ICAO.a0, 4000.0), log=True),
+    "mach_limit": Kind(0.0, 11.0, _around(0.0, 1.0, dom.MACH_MAX, 0.8)),
+    "subsonic_mach_limit": Kind(0.0, 1.1, _around(0.0, 1.0, 0.8)),
 }
 
 
@@ -184,6 +200,15 @@ SPECS = [
     Spec("tat_from_sat", ("temperature", "mach", "recovery")),
     Spec("air_data", ("pressure", "pt_ratio", "temperature", "recovery", "setting"),
          build=_chain_inputs, outputs=_AIR),
+    Spec("stall_eas", ("weight", "wing_area", "cl_max", "load_factor")),
+    Spec("stall_mach", ("weight", "wing_area", "cl_max", "pressure", "load_factor")),
+    Spec("stall_cas", ("weight", "wing_area", "cl_max", "pressure", "load_factor")),
+    Spec("stall_tas", ("weight", "wing_area", "cl_max", "pressure", "temperature",
+                       "load_factor")),
+    Spec("crossover_altitude", ("cas_limit", "subsonic_mach_limit")),
+    Spec("max_operating_cas", ("pressure", "cas_limit", "mach_limit")),
+    Spec("max_operating_mach", ("pressure", "cas_limit", "mach_limit")),
+    Spec("ceiling_margin", ("pressure", "altitude")),
 ]
 BY_NAME = {s.name: s for s in SPECS}
 TINY = {"double": 2.0**-1022, "single": 2.0**-126}

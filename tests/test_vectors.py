@@ -187,7 +187,7 @@ def test_build_is_deterministic_through_the_cli(fresh: dict[str, bytes], tmp_pat
                                                 ) -> None:
     r = _cli("vectors", "build", "--out", str(tmp_path / "s"))
     assert r.returncode == 0, r.stderr
-    assert "22 functions" in r.stdout
+    assert "30 functions" in r.stdout
     for rel, data in fresh.items():
         assert (tmp_path / "s" / rel).read_bytes() == data, rel
 
@@ -388,7 +388,7 @@ def test_loader_refuses_oversize(tmp_path: Path) -> None:
 def test_verify_checked_in_suite_through_the_cli() -> None:
     r = _cli("vectors", "verify")
     assert r.returncode == 0, r.stderr[-2000:]
-    assert "OK - suite 1.0.0" in r.stdout and "22 functions" in r.stdout
+    assert "OK - suite 1.0.0" in r.stdout and "30 functions" in r.stdout
 
 
 def test_verify_mini_suite_ok(tmp_path: Path) -> None:
@@ -608,7 +608,8 @@ def test_expected_and_scale_agree_with_the_mpmath_oracle(name: str) -> None:
         cases = [c for c in cases if c["inputs"]["use_setting"] == 1
                  and c["inputs"]["pt"] != c["inputs"]["ps"]]
     picks = cases[:: max(1, len(cases) // 25)]
-    picks += [c for c in cases if {"layer-base", "sonic"} & set(c["tags"])][::3]
+    seams = {"layer-base", "sonic", "crossover"}
+    picks += [c for c in cases if seams & set(c["tags"])][::3]
     assert len(picks) >= 20
     out = spec.outputs[0][0]
 
@@ -629,7 +630,7 @@ def test_expected_and_scale_agree_with_the_mpmath_oracle(name: str) -> None:
             assert cse <= 4.0, (name, c["id"], o, cse)
             want = float(scale[o])
             got = _val(c["scale"][o])
-            if {"layer-base", "sonic"} & set(c["tags"]):
+            if seams & set(c["tags"]):
                 # Within the step of a seam both sides' slopes count: never smaller.
                 assert 0.99 * want - 1e-300 <= got <= 3 * want + 1e-300, (name, c["id"], o)
             else:

@@ -83,7 +83,7 @@ def test_bundled_port_passes_every_vector_in_binary64(tmp_path: Path) -> None:
     assert set(rows) == {s.name for s in CATALOGUE}
     assert r.returncode == 0, r.stdout[-3000:]
     assert all(failed == 0 and cases >= 500 for cases, failed in rows.values())
-    assert "22 functions: all passed" in r.stdout
+    assert "30 functions: all passed" in r.stdout
 
 
 @pytest.fixture(scope="module")
@@ -162,4 +162,4 @@ def test_runner_fails_a_port_that_computes_nothing(tmp_path: Path) -> None:
     assert r.returncode == 1
     assert len(rows) == len(CATALOGUE)
     assert all(failed > 0 for _, failed in rows.values())
-    assert "22 functions: FAILED" in r.stdout
+    assert "30 functions: FAILED" in r.stdout

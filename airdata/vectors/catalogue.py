@@ -22,6 +22,7 @@ from numpy.typing import NDArray
 import airdata
 
 from .. import _domains as dom
+from .. import limits as _lim
 from .._inputs import Domain
 from ..chain import _NOISE, _TOTAL_PRESSURE, NOISE_BAND
 from ..pitot import RATIO_MAX, RATIO_SONIC
@@ -54,6 +55,8 @@ TAGS: dict[str, str] = {
     "no-setting": "air_data without an altimeter setting (setting is NaN and ignored)",
     "zeroed": "air_data: a small negative impact pressure read as zero",
     "noise-band": "air_data: a non-default noise band",
+    "crossover": "at (or a few ulp from) the pressure where a CAS limit and a Mach limit "
+                 "coincide: the maximum operating speed switches from one to the other",
 }
 
 _ULPS = (-4, -1, 1, 4)
@@ -206,6 +209,24 @@ def _mk_args() -> dict[str, Arg]:
     a["noise_band"] = Arg("noise_band", "Pa", lambda p: _NOISE, ("lin", None, None),
                           lambda p: [NOISE_BAND])
     a["use_setting"] = Arg("use_setting", "", None, kind="flag")
+    # The limit functions (airdata/limits.py).
+    a["weight"] = Arg("weight", "N", lambda p: _lim.WEIGHT, ("log", 1.0e3, 1.0e7),
+                      lambda p: [6.0e5, 2.0e4, 3.0e6])
+    a["wing_area"] = Arg("wing_area", "m2", lambda p: _lim.WING_AREA, ("log", 5.0, 2000.0),
+                         lambda p: [120.0, 15.0, 400.0])
+    a["cl_max"] = Arg("cl_max", "1", lambda p: _lim.CL_MAX, ("lin", 0.5, 10.0),
+                      lambda p: [2.4, 1.4, 3.0])
+    a["load_factor"] = Arg("load_factor", "1", lambda p: _lim.LOAD_FACTOR, ("lin", 0.5, 10.0),
+                           lambda p: [1.0, 1.5, 2.5])
+    a["cas_limit"] = Arg("cas_limit", "m/s", lambda p: _lim.CAS_LIMIT, ("lin", 40.0, 700.0),
+                         lambda p: [175.0, 130.0, 250.0], _cas_seams)
+    a["mach_limit"] = Arg("mach_limit", "1", lambda p: _lim.MACH_LIMIT, ("lin", 0.2, 4.0),
+                          lambda p: [0.82, 0.6, 2.0], _mach_seams)
+    a["subsonic_mach_limit"] = Arg("mach_limit", "1", lambda p: _lim.SUBSONIC_MACH_LIMIT,
+                                   ("lin", 0.3, 0.99), lambda p: [0.82, 0.6, 0.9],
+                                   lambda p: [(1.0, "sonic")])
+    a["ceiling"] = Arg("ceiling", "m", dom.altitude, ("lin", None, None),
+                       lambda p: [12500.0, 4000.0, 20000.0], _alt_seams)
     return a
 
 
@@ -576,6 +597,101 @@ def _extra_temperature(first: str) -> Callable[[Profile], list[CaseSeed]]:
     return extra
 
 
+def _stall_extra(name: str) -> Callable[[Profile], list[CaseSeed]]:
+    """Stall cases: the 4000 m/s EAS limit, the Mach 10 limit at low pressure, the
+    10 a0 CAS limit, tiny stall speeds, M = 1, and a sweep over static pressure."""
+
+    def extra(p: Profile) -> list[CaseSeed]:
+        seeds: list[CaseSeed] = []
+        base = {"weight": 6.0e5, "wing_area": 120.0, "cl_max": 2.4, "load_factor": 1.0,
+                "ps": p.p0, "sat": 288.15}
+        keys = ["weight", "wing_area", "cl_max"] + (["ps"] if name != "stall_eas" else []) \
+            + (["sat"] if name == "stall_tas" else []) + ["load_factor"]
+
+        def add(tags: tuple[str, ...], **kw: float) -> None:
+            x = dict(base)
+            x.update(kw)
+            seeds.append(CaseSeed({k: x[k] for k in keys}, tags))
+
+        # EAS = 4000 m/s (LIM-1 derived limit): weight at which the stall EAS is 4000.
+        w_top = 0.5 * p.rho0 * 4000.0**2 * 0.5 * 1.0
+        for v, _ in _derived_limit(w_top):
+            add(("derived-limit", "extreme"), weight=v, wing_area=0.5, cl_max=1.0)
+        # Tiny stall speeds.
+        add(("tiny",), weight=1.0e-6, wing_area=2000.0, cl_max=10.0, load_factor=1e-3)
+        if name == "stall_eas":
+            return seeds
+        # Stall speeds swept over pressure (the altitude column of an envelope).
+        for ps in np.geomspace(p.p_min, p.p_max, 24):
+            for w in (2.0e4, 6.0e5, 3.0e6):
+                add(("sweep",), weight=w, ps=float(ps))
+        # Mach 10 reached at low pressure: the pressure where the stall Mach is 10.
+        eas = _f(airdata.stall_eas(6.0e5, 120.0, 2.4, profile=p))
+        ps10 = p.p0 * (eas / (10.0 * p.a0)) ** 2
+        for v, _ in _derived_limit(ps10):
+            add(("derived-limit",), ps=v)
+        # M = 1 and CAS = a0 at sea level: the weight where the stall Mach is 1.
+        w1 = 0.5 * p.rho0 * (p.a0 * math.sqrt(0.5)) ** 2 * 120.0 * 2.4
+        for v, moved in around(w1):
+            add(("sonic",) + (("ulp-offset",) if moved else ()), weight=v, ps=0.5 * p.p0)
+        if name == "stall_cas":
+            # CAS = 10 a0 reached at high pressure with a high stall Mach.
+            m_lim = _f(airdata.mach_from_impact_pressure(RATIO_MAX * p.p0, p.p_max,
+                                                         profile=p))
+            w_lim = 0.5 * p.rho0 * (m_lim * p.a0) ** 2 * (p.p_max / p.p0) * 0.5
+            for v, _ in _derived_limit(w_lim):
+                add(("derived-limit", "extreme"), weight=v, wing_area=0.5, cl_max=1.0,
+                    ps=p.p_max)
+        return seeds
+
+    return extra
+
+
+def _extra_crossover(p: Profile) -> list[CaseSeed]:
+    seeds: list[CaseSeed] = []
+    for cas in np.linspace(60.0, 500.0, 23):
+        for m in np.linspace(0.3, 0.98, 18):
+            seeds.append(CaseSeed({"cas_limit": float(cas), "mach_limit": float(m)},
+                                  ("sweep",)))
+    # Crossover at the ends of the pressure range: the CAS limit whose crossover
+    # pressure is p_min or p_max at Mach 0.8.
+    f08 = _f(airdata.impact_pressure_from_mach(0.8, 1.0, profile=p))
+    for pe in (p.p_min, p.p_max):
+        cas = _f(airdata.cas_from_impact_pressure(pe * f08, profile=p))
+        for v, _ in _derived_limit(cas):
+            seeds.append(CaseSeed({"cas_limit": v, "mach_limit": 0.8},
+                                  ("derived-limit", "extreme")))
+    # Crossover at the layer bases.
+    for pb in p.base_pressure[1:]:
+        cas = _f(airdata.cas_from_impact_pressure(pb * f08, profile=p))
+        seeds.append(CaseSeed({"cas_limit": cas, "mach_limit": 0.8}, ("layer-base",)))
+    # CAS limit at 10 a0, just inside and outside.
+    for v, _ in _derived_limit(10.0 * p.a0):
+        seeds.append(CaseSeed({"cas_limit": v, "mach_limit": 0.999}, ("derived-limit",)))
+    return seeds
+
+
+def _extra_max_operating(p: Profile) -> list[CaseSeed]:
+    seeds: list[CaseSeed] = []
+    for ps in np.geomspace(p.p_min, p.p_max, 30):
+        for cas, m in ((175.0, 0.82), (130.0, 0.6), (250.0, 2.0), (400.0, 0.9),
+                       (60.0, 9.5)):
+            seeds.append(CaseSeed({"ps": float(ps), "cas_limit": cas, "mach_limit": m},
+                                  ("sweep",)))
+    # At (and ulps either side of) the crossover pressure: the branch switch.
+    for cas, m in ((175.0, 0.82), (130.0, 0.6), (250.0, 0.9)):
+        hx = _f(airdata.crossover_altitude(cas, m, profile=p))
+        px = _f(airdata.pressure_at_altitude(hx, profile=p))
+        for v, moved in around(px):
+            seeds.append(CaseSeed({"ps": v, "cas_limit": cas, "mach_limit": m},
+                                  ("crossover",) + (("ulp-offset",) if moved else ())))
+    for v, _ in _derived_limit(10.0 * p.a0):
+        seeds.append(CaseSeed({"ps": p.p0, "cas_limit": v, "mach_limit": 0.8},
+                              ("derived-limit", "extreme")))
+    seeds.append(CaseSeed({"ps": p.p0, "cas_limit": 1e-6, "mach_limit": 1e-8}, ("tiny",)))
+    return seeds
+
+
 def _mk_catalogue() -> tuple[FunctionSpec, ...]:
     A = ARGS
     s = _single
@@ -685,6 +801,53 @@ def _mk_catalogue() -> tuple[FunctionSpec, ...]:
                          "m", "m", "Pa", "1", "m/s", "m/s", "m/s", "K", "kg/m3", "m", "Pa"),
                          strict=True)),
                      lambda x, p, s_: {}, (), _extra_chain, _chain_nominals, _chain_status),
+        FunctionSpec("stall_eas", ("LIM-1",),
+                     "Stall equivalent airspeed from lift = load_factor x weight",
+                     (A["weight"], A["wing_area"], A["cl_max"], A["load_factor"]),
+                     (("eas", "m/s"),),
+                     s(airdata.stall_eas, "eas", ["weight", "wing_area", "cl_max",
+                                                  "load_factor"]),
+                     (7, 5, 4, 4), _stall_extra("stall_eas")),
+        FunctionSpec("stall_mach", ("LIM-1", "LIM-2"), "Stall Mach number at static pressure ps",
+                     (A["weight"], A["wing_area"], A["cl_max"], A["ps"], A["load_factor"]),
+                     (("mach", "1"),),
+                     s(airdata.stall_mach, "mach", ["weight", "wing_area", "cl_max", "ps",
+                                                    "load_factor"]),
+                     (5, 3, 3, 8, 2), _stall_extra("stall_mach")),
+        FunctionSpec("stall_cas", ("LIM-1", "LIM-2"),
+                     "Stall calibrated airspeed at static pressure ps",
+                     (A["weight"], A["wing_area"], A["cl_max"], A["ps"], A["load_factor"]),
+                     (("cas", "m/s"),),
+                     s(airdata.stall_cas, "cas", ["weight", "wing_area", "cl_max", "ps",
+                                                  "load_factor"]),
+                     (5, 3, 3, 8, 2), _stall_extra("stall_cas")),
+        FunctionSpec("stall_tas", ("LIM-1", "LIM-2"),
+                     "Stall true airspeed at static pressure ps and static air temperature sat",
+                     (A["weight"], A["wing_area"], A["cl_max"], A["ps"], A["sat"],
+                      A["load_factor"]),
+                     (("tas", "m/s"),),
+                     s(airdata.stall_tas, "tas", ["weight", "wing_area", "cl_max", "ps", "sat",
+                                                  "load_factor"]),
+                     (4, 2, 3, 6, 2, 2), _stall_extra("stall_tas")),
+        FunctionSpec("crossover_altitude", ("LIM-3",),
+                     "Pressure altitude where a CAS limit and a subsonic Mach limit coincide",
+                     (A["cas_limit"], A["subsonic_mach_limit"]), (("h", "m"),),
+                     s(airdata.crossover_altitude, "h", ["cas_limit", "mach_limit"]),
+                     (24, 16), _extra_crossover),
+        FunctionSpec("max_operating_cas", ("LIM-4",),
+                     "Maximum operating CAS at ps: the lower of a CAS and a Mach limit",
+                     (A["ps"], A["cas_limit"], A["mach_limit"]), (("cas", "m/s"),),
+                     s(airdata.max_operating_cas, "cas", ["ps", "cas_limit", "mach_limit"]),
+                     (16, 6, 6), _extra_max_operating),
+        FunctionSpec("max_operating_mach", ("LIM-4",),
+                     "Maximum operating Mach number at ps: the lower of a CAS and a Mach limit",
+                     (A["ps"], A["cas_limit"], A["mach_limit"]), (("mach", "1"),),
+                     s(airdata.max_operating_mach, "mach", ["ps", "cas_limit", "mach_limit"]),
+                     (16, 6, 6), _extra_max_operating),
+        FunctionSpec("ceiling_margin", ("LIM-5", "ALT-1"),
+                     "Margin to a maximum altitude given as a pressure altitude",
+                     (A["ps"], A["ceiling"]), (("margin", "m"),),
+                     s(airdata.ceiling_margin, "margin", ["ps", "ceiling"]), (30, 15)),
     )
 
 

@@ -11,12 +11,14 @@ __all__ = ["CURRENT", "ENTRIES", "POLICY", "changelog_text", "readme_text"]
 #: (suite version, schema version, what changed) - newest first.
 ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
     ("1.0.0", 1, (
-        "First suite: 22 catalogue functions (every public function of airdata, "
+        "First suite: 30 catalogue functions (every public function of airdata, "
         "air_data with and without an altimeter setting), constants profile icao.",
         "Format version 1: one JSON file per function, numbers as [shortest decimal, "
         "C99 hex float], per-case condition scale, status and binary32 check level; "
         "JSON Schema (draft 2020-12) per file; C99 headers of the same cases.",
         "Acceptance bound k * eps * scale with k = 8.",
+        "Limit functions (LIM-1 .. LIM-5): stall_eas, stall_mach, stall_cas, stall_tas, "
+        "crossover_altitude, max_operating_cas, max_operating_mach, ceiling_margin.",
     )),
 )
 

@@ -28,7 +28,15 @@
 #include "ad_vec_sat_from_tat.h"
 #include "ad_vec_tat_from_sat.h"
 #include "ad_vec_air_data.h"
+#include "ad_vec_stall_eas.h"
+#include "ad_vec_stall_mach.h"
+#include "ad_vec_stall_cas.h"
+#include "ad_vec_stall_tas.h"
+#include "ad_vec_crossover_altitude.h"
+#include "ad_vec_max_operating_cas.h"
+#include "ad_vec_max_operating_mach.h"
+#include "ad_vec_ceiling_margin.h"
 
-#define AD_VEC_FUNCTION_COUNT 22
+#define AD_VEC_FUNCTION_COUNT 30
 
 #endif /* AD_VECTORS_H */

@@ -105,4 +105,24 @@ ad_status ad_air_data(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
                       ad_real setting, int use_setting, ad_real noise_band,
                       ad_air_data_t *out);
 
+/* limits.c: flight-envelope limits (LIM-1 .. LIM-5), mirroring airdata/limits.py.
+ * weight N, wing_area m2, cl_max and load_factor dimensionless (load_factor = 1 for
+ * level flight; Python's default), cas_limit m/s, mach_limit dimensionless, ceiling m
+ * (geopotential pressure altitude).  crossover_altitude takes a subsonic Mach limit,
+ * in (0, 1); the maximum operating functions take one in (0, 10]. */
+ad_status ad_stall_eas(ad_real weight, ad_real wing_area, ad_real cl_max,
+                       ad_real load_factor, ad_real *eas);
+ad_status ad_stall_mach(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                        ad_real load_factor, ad_real *mach);
+ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                       ad_real load_factor, ad_real *cas);
+ad_status ad_stall_tas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                       ad_real sat, ad_real load_factor, ad_real *tas);
+ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *h);
+ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                               ad_real *cas);
+ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                                ad_real *mach);
+ad_status ad_ceiling_margin(ad_real ps, ad_real ceiling, ad_real *margin);
+
 #endif /* AIRDATA_H */

@@ -24,7 +24,8 @@
 /* Returned when a required pointer is NULL: the largest size_t. */
 #define AD_BATCH_NULL ((size_t)-1)
 
-/* Argument domains (airdata/_domains.py and the chain's own inputs). */
+/* Argument domains (airdata/_domains.py, the chain's own inputs and the limit
+ * functions' inputs, airdata/limits.py). */
 typedef enum {
     AD_DOM_MACH = 0,
     AD_DOM_SPEED = 1,
@@ -38,7 +39,14 @@ typedef enum {
     AD_DOM_PRESSURE = 9,
     AD_DOM_SETTING = 10,
     AD_DOM_TOTAL_PRESSURE = 11,
-    AD_DOM_NOISE_BAND = 12
+    AD_DOM_NOISE_BAND = 12,
+    AD_DOM_WEIGHT = 13,
+    AD_DOM_WING_AREA = 14,
+    AD_DOM_CL_MAX = 15,
+    AD_DOM_LOAD_FACTOR = 16,
+    AD_DOM_CAS_LIMIT = 17,
+    AD_DOM_MACH_LIMIT = 18,
+    AD_DOM_SUBSONIC_MACH_LIMIT = 19
 } ad_domain_id;
 
 size_t ad_check_n(ad_domain_id domain, const ad_real *x, unsigned char *status, size_t n);
@@ -100,5 +108,29 @@ size_t ad_air_data_n(const ad_real *ps, const ad_real *pt, const ad_real *tat,
                      const ad_real *recovery, const ad_real *setting, int use_setting,
                      ad_real noise_band, ad_air_data_t *out, unsigned char *status,
                      size_t n);
+
+/* limits */
+size_t ad_stall_eas_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max,
+                      const ad_real *load_factor, ad_real *eas, unsigned char *status,
+                      size_t n);
+size_t ad_stall_mach_n(const ad_real *weight, const ad_real *wing_area,
+                       const ad_real *cl_max, const ad_real *ps, const ad_real *load_factor,
+                       ad_real *mach, unsigned char *status, size_t n);
+size_t ad_stall_cas_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max,
+                      const ad_real *ps, const ad_real *load_factor, ad_real *cas,
+                      unsigned char *status, size_t n);
+size_t ad_stall_tas_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max,
+                      const ad_real *ps, const ad_real *sat, const ad_real *load_factor,
+                      ad_real *tas, unsigned char *status, size_t n);
+size_t ad_crossover_altitude_n(const ad_real *cas_limit, const ad_real *mach_limit,
+                               ad_real *h, unsigned char *status, size_t n);
+size_t ad_max_operating_cas_n(const ad_real *ps, const ad_real *cas_limit,
+                              const ad_real *mach_limit, ad_real *cas,
+                              unsigned char *status, size_t n);
+size_t ad_max_operating_mach_n(const ad_real *ps, const ad_real *cas_limit,
+                               const ad_real *mach_limit, ad_real *mach,
+                               unsigned char *status, size_t n);
+size_t ad_ceiling_margin_n(const ad_real *ps, const ad_real *ceiling, ad_real *margin,
+                           unsigned char *status, size_t n);
 
 #endif /* AIRDATA_BATCH_H */

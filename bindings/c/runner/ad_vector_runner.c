@@ -498,6 +498,122 @@ static void run_air_data(tally_t *t)
     }
 }
 
+static void run_stall_eas(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_STALL_EAS_COUNT; ++i) {
+        const ad_vec_stall_eas_case *c = &ad_vec_stall_eas_cases[i];
+        out[0] = 0;
+        st = ad_stall_eas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3],
+                       &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_STALL_EAS_NOUT);
+    }
+}
+
+static void run_stall_mach(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_STALL_MACH_COUNT; ++i) {
+        const ad_vec_stall_mach_case *c = &ad_vec_stall_mach_cases[i];
+        out[0] = 0;
+        st = ad_stall_mach((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3], (ad_real)c->in[4],
+                       &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_STALL_MACH_NOUT);
+    }
+}
+
+static void run_stall_cas(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_STALL_CAS_COUNT; ++i) {
+        const ad_vec_stall_cas_case *c = &ad_vec_stall_cas_cases[i];
+        out[0] = 0;
+        st = ad_stall_cas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3], (ad_real)c->in[4],
+                       &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_STALL_CAS_NOUT);
+    }
+}
+
+static void run_stall_tas(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_STALL_TAS_COUNT; ++i) {
+        const ad_vec_stall_tas_case *c = &ad_vec_stall_tas_cases[i];
+        out[0] = 0;
+        st = ad_stall_tas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3], (ad_real)c->in[4], (ad_real)c->in[5],
+                       &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_STALL_TAS_NOUT);
+    }
+}
+
+static void run_crossover_altitude(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_CROSSOVER_ALTITUDE_COUNT; ++i) {
+        const ad_vec_crossover_altitude_case *c = &ad_vec_crossover_altitude_cases[i];
+        out[0] = 0;
+        st = ad_crossover_altitude((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_CROSSOVER_ALTITUDE_NOUT);
+    }
+}
+
+static void run_max_operating_cas(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_MAX_OPERATING_CAS_COUNT; ++i) {
+        const ad_vec_max_operating_cas_case *c = &ad_vec_max_operating_cas_cases[i];
+        out[0] = 0;
+        st = ad_max_operating_cas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_MAX_OPERATING_CAS_NOUT);
+    }
+}
+
+static void run_max_operating_mach(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_MAX_OPERATING_MACH_COUNT; ++i) {
+        const ad_vec_max_operating_mach_case *c = &ad_vec_max_operating_mach_cases[i];
+        out[0] = 0;
+        st = ad_max_operating_mach((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_MAX_OPERATING_MACH_NOUT);
+    }
+}
+
+static void run_ceiling_margin(tally_t *t)
+{
+    ad_real out[1];
+    ad_status st;
+    int i;
+    for (i = 0; i < AD_VEC_CEILING_MARGIN_COUNT; ++i) {
+        const ad_vec_ceiling_margin_case *c = &ad_vec_ceiling_margin_cases[i];
+        out[0] = 0;
+        st = ad_ceiling_margin((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
+                   c->scale, AD_VEC_CEILING_MARGIN_NOUT);
+    }
+}
+
 int main(void)
 {
     tally_t t;
@@ -569,6 +685,30 @@ int main(void)
     failed += tally_finish(&t);
     tally_start(&t, "air_data");
     run_air_data(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "stall_eas");
+    run_stall_eas(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "stall_mach");
+    run_stall_mach(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "stall_cas");
+    run_stall_cas(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "stall_tas");
+    run_stall_tas(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "crossover_altitude");
+    run_crossover_altitude(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "max_operating_cas");
+    run_max_operating_cas(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "max_operating_mach");
+    run_max_operating_mach(&t);
+    failed += tally_finish(&t);
+    tally_start(&t, "ceiling_margin");
+    run_ceiling_margin(&t);
     failed += tally_finish(&t);
     printf("%d functions: %s\n", AD_VEC_FUNCTION_COUNT, failed == 0 ? "all passed" : "FAILED");
     return failed == 0 ? 0 : 1;

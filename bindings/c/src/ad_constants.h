@@ -50,6 +50,7 @@
 #define AD_K_S3 (-0x1.da511ap-3f) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6dcp-2f /* 5/14: 2.5/7, start-value offset of the supersonic solver */
 #define AD_K_1 0x1p+0f /* 1: one */
+#define AD_K_2 0x1p+1f /* 2: factor 2 of the lift equation, q = rho0 eas^2 / 2 */
 #define AD_K_2P5 0x1.4p+1f /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1f /* 3.5: exponent gamma/(gamma - 1) */
 #define AD_K_5 0x1.4p+2f /* 5: 2/(gamma - 1) */
@@ -72,6 +73,20 @@
 #define AD_TOTAL_PRESSURE_HI 0x1.7d784p+26f
 #define AD_NOISE_BAND_LO 0x0p+0f
 #define AD_NOISE_BAND_HI 0x1.388p+13f
+#define AD_WEIGHT_LO 0x0p+0f
+#define AD_WEIGHT_HI 0x1.312dp+23f
+#define AD_WING_AREA_LO 0x0p+0f
+#define AD_WING_AREA_HI 0x1.f4p+10f
+#define AD_CL_MAX_LO 0x0p+0f
+#define AD_CL_MAX_HI 0x1.4p+3f
+#define AD_LOAD_FACTOR_LO 0x0p+0f
+#define AD_LOAD_FACTOR_HI 0x1.4p+3f
+#define AD_CAS_LIMIT_LO 0x0p+0f
+#define AD_CAS_LIMIT_HI 0x1.f4p+11f
+#define AD_MACH_LIMIT_LO 0x0p+0f
+#define AD_MACH_LIMIT_HI 0x1.4p+3f
+#define AD_SUBSONIC_MACH_LIMIT_LO 0x0p+0f
+#define AD_SUBSONIC_MACH_LIMIT_HI 0x1p+0f
 #define AD_ALTITUDE_LO (-0x1.388p+12f)
 #define AD_ALTITUDE_HI 0x1.4b74p+16f
 #define AD_GEOMETRIC_LO (-0x1.38412p+12f)
@@ -117,6 +132,7 @@
 #define AD_K_S3 (-0x1.da5119ce075f7p-3) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6db6db6db7p-2 /* 5/14: 2.5/7, start-value offset of the supersonic solver */
 #define AD_K_1 0x1p+0 /* 1: one */
+#define AD_K_2 0x1p+1 /* 2: factor 2 of the lift equation, q = rho0 eas^2 / 2 */
 #define AD_K_2P5 0x1.4p+1 /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1 /* 3.5: exponent gamma/(gamma - 1) */
 #define AD_K_5 0x1.4p+2 /* 5: 2/(gamma - 1) */
@@ -139,6 +155,20 @@
 #define AD_TOTAL_PRESSURE_HI 0x1.7d784p+26
 #define AD_NOISE_BAND_LO 0x0p+0
 #define AD_NOISE_BAND_HI 0x1.388p+13
+#define AD_WEIGHT_LO 0x0p+0
+#define AD_WEIGHT_HI 0x1.312dp+23
+#define AD_WING_AREA_LO 0x0p+0
+#define AD_WING_AREA_HI 0x1.f4p+10
+#define AD_CL_MAX_LO 0x0p+0
+#define AD_CL_MAX_HI 0x1.4p+3
+#define AD_LOAD_FACTOR_LO 0x0p+0
+#define AD_LOAD_FACTOR_HI 0x1.4p+3
+#define AD_CAS_LIMIT_LO 0x0p+0
+#define AD_CAS_LIMIT_HI 0x1.f4p+11
+#define AD_MACH_LIMIT_LO 0x0p+0
+#define AD_MACH_LIMIT_HI 0x1.4p+3
+#define AD_SUBSONIC_MACH_LIMIT_LO 0x0p+0
+#define AD_SUBSONIC_MACH_LIMIT_HI 0x1p+0
 #define AD_ALTITUDE_LO (-0x1.388p+12)
 #define AD_ALTITUDE_HI 0x1.4b74p+16
 #define AD_GEOMETRIC_LO (-0x1.38411fd72d74ep+12)
@@ -187,6 +217,7 @@
 #define AD_K_S3 (-0x1.da511ap-3f) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6dcp-2f /* 5/14: 2.5/7, start-value offset of the supersonic solver */
 #define AD_K_1 0x1p+0f /* 1: one */
+#define AD_K_2 0x1p+1f /* 2: factor 2 of the lift equation, q = rho0 eas^2 / 2 */
 #define AD_K_2P5 0x1.4p+1f /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1f /* 3.5: exponent gamma/(gamma - 1) */
 #define AD_K_5 0x1.4p+2f /* 5: 2/(gamma - 1) */
@@ -209,6 +240,20 @@
 #define AD_TOTAL_PRESSURE_HI 0x1.7d784p+26f
 #define AD_NOISE_BAND_LO 0x0p+0f
 #define AD_NOISE_BAND_HI 0x1.388p+13f
+#define AD_WEIGHT_LO 0x0p+0f
+#define AD_WEIGHT_HI 0x1.312dp+23f
+#define AD_WING_AREA_LO 0x0p+0f
+#define AD_WING_AREA_HI 0x1.f4p+10f
+#define AD_CL_MAX_LO 0x0p+0f
+#define AD_CL_MAX_HI 0x1.4p+3f
+#define AD_LOAD_FACTOR_LO 0x0p+0f
+#define AD_LOAD_FACTOR_HI 0x1.4p+3f
+#define AD_CAS_LIMIT_LO 0x0p+0f
+#define AD_CAS_LIMIT_HI 0x1.f4p+11f
+#define AD_MACH_LIMIT_LO 0x0p+0f
+#define AD_MACH_LIMIT_HI 0x1.4p+3f
+#define AD_SUBSONIC_MACH_LIMIT_LO 0x0p+0f
+#define AD_SUBSONIC_MACH_LIMIT_HI 0x1p+0f
 #define AD_ALTITUDE_LO (-0x1.388p+12f)
 #define AD_ALTITUDE_HI 0x1.4b74p+16f
 #define AD_GEOMETRIC_LO (-0x1.38412p+12f)
@@ -254,6 +299,7 @@
 #define AD_K_S3 (-0x1.da5119ce075f7p-3) /* -0.2316: start-value coefficient of the supersonic solver (x^3) */
 #define AD_K_5_14 0x1.6db6db6db6db7p-2 /* 5/14: 2.5/7, start-value offset of the supersonic solver */
 #define AD_K_1 0x1p+0 /* 1: one */
+#define AD_K_2 0x1p+1 /* 2: factor 2 of the lift equation, q = rho0 eas^2 / 2 */
 #define AD_K_2P5 0x1.4p+1 /* 2.5: exponent 1/(gamma - 1) */
 #define AD_K_3P5 0x1.cp+1 /* 3.5: exponent gamma/(gamma - 1) */
 #define AD_K_5 0x1.4p+2 /* 5: 2/(gamma - 1) */
@@ -276,6 +322,20 @@
 #define AD_TOTAL_PRESSURE_HI 0x1.7d784p+26
 #define AD_NOISE_BAND_LO 0x0p+0
 #define AD_NOISE_BAND_HI 0x1.388p+13
+#define AD_WEIGHT_LO 0x0p+0
+#define AD_WEIGHT_HI 0x1.312dp+23
+#define AD_WING_AREA_LO 0x0p+0
+#define AD_WING_AREA_HI 0x1.f4p+10
+#define AD_CL_MAX_LO 0x0p+0
+#define AD_CL_MAX_HI 0x1.4p+3
+#define AD_LOAD_FACTOR_LO 0x0p+0
+#define AD_LOAD_FACTOR_HI 0x1.4p+3
+#define AD_CAS_LIMIT_LO 0x0p+0
+#define AD_CAS_LIMIT_HI 0x1.f4p+11
+#define AD_MACH_LIMIT_LO 0x0p+0
+#define AD_MACH_LIMIT_HI 0x1.4p+3
+#define AD_SUBSONIC_MACH_LIMIT_LO 0x0p+0
+#define AD_SUBSONIC_MACH_LIMIT_HI 0x1p+0
 #define AD_ALTITUDE_LO (-0x1.388p+12)
 #define AD_ALTITUDE_HI 0x1.4b74p+16
 #define AD_GEOMETRIC_LO (-0x1.38411fd72d74ep+12)

@@ -375,3 +375,131 @@ size_t ad_air_data_n(const ad_real *ps, const ad_real *pt, const ad_real *tat,
     }
     return bad;
 }
+
+size_t ad_stall_eas_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max, const ad_real *load_factor,
+    ad_real *eas, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((weight == NULL) || (wing_area == NULL) || (cl_max == NULL) || (load_factor == NULL) || (eas == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_stall_eas(weight[i], wing_area[i], cl_max[i], load_factor[i], &eas[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_stall_mach_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max, const ad_real *ps, const ad_real *load_factor,
+    ad_real *mach, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((weight == NULL) || (wing_area == NULL) || (cl_max == NULL) || (ps == NULL) || (load_factor == NULL) || (mach == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_stall_mach(weight[i], wing_area[i], cl_max[i], ps[i], load_factor[i], &mach[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_stall_cas_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max, const ad_real *ps, const ad_real *load_factor,
+    ad_real *cas, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((weight == NULL) || (wing_area == NULL) || (cl_max == NULL) || (ps == NULL) || (load_factor == NULL) || (cas == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_stall_cas(weight[i], wing_area[i], cl_max[i], ps[i], load_factor[i], &cas[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_stall_tas_n(const ad_real *weight, const ad_real *wing_area, const ad_real *cl_max, const ad_real *ps, const ad_real *sat, const ad_real *load_factor,
+    ad_real *tas, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((weight == NULL) || (wing_area == NULL) || (cl_max == NULL) || (ps == NULL) || (sat == NULL) || (load_factor == NULL) || (tas == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_stall_tas(weight[i], wing_area[i], cl_max[i], ps[i], sat[i], load_factor[i], &tas[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_crossover_altitude_n(const ad_real *cas_limit, const ad_real *mach_limit,
+    ad_real *h, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((cas_limit == NULL) || (mach_limit == NULL) || (h == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_crossover_altitude(cas_limit[i], mach_limit[i], &h[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_max_operating_cas_n(const ad_real *ps, const ad_real *cas_limit, const ad_real *mach_limit,
+    ad_real *cas, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((ps == NULL) || (cas_limit == NULL) || (mach_limit == NULL) || (cas == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_max_operating_cas(ps[i], cas_limit[i], mach_limit[i], &cas[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_max_operating_mach_n(const ad_real *ps, const ad_real *cas_limit, const ad_real *mach_limit,
+    ad_real *mach, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((ps == NULL) || (cas_limit == NULL) || (mach_limit == NULL) || (mach == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_max_operating_mach(ps[i], cas_limit[i], mach_limit[i], &mach[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}
+
+size_t ad_ceiling_margin_n(const ad_real *ps, const ad_real *ceiling,
+    ad_real *margin, unsigned char *status, size_t n)
+{
+    size_t bad = 0U;
+    size_t i;
+    if ((ps == NULL) || (ceiling == NULL) || (margin == NULL) || (status == NULL)) {
+        return AD_BATCH_NULL;
+    }
+    for (i = 0U; i < n; i++) {
+        const ad_status st = ad_ceiling_margin(ps[i], ceiling[i], &margin[i]);
+        status[i] = (unsigned char)st;
+        bad += ad_is_error(st);
+    }
+    return bad;
+}

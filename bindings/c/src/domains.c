@@ -25,6 +25,24 @@ typedef struct {
     ad_sign sign;
 } ad_domain;
 
+/* The limit functions' argument domains (airdata/limits.py): all positive. */
+static ad_domain ad_limit_domain_of(ad_domain_id id)
+{
+    ad_domain d = { (ad_real)0, (ad_real)0, AD_SIGN_POSITIVE };
+    switch (id) {
+    case AD_DOM_WEIGHT: d.lo = AD_WEIGHT_LO; d.hi = AD_WEIGHT_HI; break;
+    case AD_DOM_WING_AREA: d.lo = AD_WING_AREA_LO; d.hi = AD_WING_AREA_HI; break;
+    case AD_DOM_CL_MAX: d.lo = AD_CL_MAX_LO; d.hi = AD_CL_MAX_HI; break;
+    case AD_DOM_LOAD_FACTOR: d.lo = AD_LOAD_FACTOR_LO; d.hi = AD_LOAD_FACTOR_HI; break;
+    case AD_DOM_CAS_LIMIT: d.lo = AD_CAS_LIMIT_LO; d.hi = AD_CAS_LIMIT_HI; break;
+    case AD_DOM_MACH_LIMIT: d.lo = AD_MACH_LIMIT_LO; d.hi = AD_MACH_LIMIT_HI; break;
+    case AD_DOM_SUBSONIC_MACH_LIMIT:
+        d.lo = AD_SUBSONIC_MACH_LIMIT_LO; d.hi = AD_SUBSONIC_MACH_LIMIT_HI; break;
+    default: d.sign = AD_SIGN_NONE; break;
+    }
+    return d;
+}
+
 static ad_domain ad_domain_of(ad_domain_id id)
 {
     ad_domain d = { AD_ALTITUDE_LO, AD_ALTITUDE_HI, AD_SIGN_ANY };
@@ -51,7 +69,7 @@ static ad_domain ad_domain_of(ad_domain_id id)
     case AD_DOM_NOISE_BAND:
         d.lo = AD_NOISE_BAND_LO; d.hi = AD_NOISE_BAND_HI; d.sign = AD_SIGN_NONNEGATIVE; break;
     case AD_DOM_ALTITUDE: break;
-    default: d.sign = AD_SIGN_NONE; break;
+    default: d = ad_limit_domain_of(id); break;
     }
     return d;
 }

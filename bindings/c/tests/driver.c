@@ -8,7 +8,7 @@
  * (sea level of the standard atmosphere; CAS = EAS = TAS at sea level on a standard
  * day: common practice, no source).  The double-double primitives (dd.c) are checked
  * on products and sums whose exact values are known by construction, and the
- * linear Mach conversion on tiny speeds.  Exit status: 0 when every check passes.
+ * linear Mach conversion on tiny speeds; the limit functions (limits.c) likewise.  Exit status: 0 when every check passes.
  */
 #include <math.h>
 #include <stdio.h>
@@ -328,6 +328,115 @@ static void test_batch_records(void)
     EXPECT(ad_atmosphere_n(h, dt, NULL, st, NB) == AD_BATCH_NULL);
 }
 
+/* The limit functions (limits.c): statuses in argument order, derived checks, NULL
+ * outputs; values against facts of the trade (lift equation with q = rho0 eas^2 / 2;
+ * stall CAS = stall EAS at sea level; below the crossover the maximum operating CAS is
+ * the CAS limit itself: common practice, no source). */
+static void test_stall(void)
+{
+    ad_real y = (ad_real)0;
+    ad_real eas = (ad_real)0;
+    const ad_real w = (ad_real)61.25; /* 1.225 * 50 N: q = 50 Pa on S CL = 1 m2 */
+    EXPECT_OUT(ad_stall_eas(w, (ad_real)1, (ad_real)1, (ad_real)1, &eas), AD_OK, eas);
+    EXPECT(fabs((double)eas - 10.0) < 1e-4);
+    EXPECT_OUT(ad_stall_cas(w, (ad_real)1, (ad_real)1, (ad_real)101325, (ad_real)1, &y),
+               AD_OK, y);
+    EXPECT(fabs((double)(y - eas)) < 1e-4);
+    EXPECT_OUT(ad_stall_eas((ad_real)-1, (ad_real)1, (ad_real)1, (ad_real)1, &y),
+               AD_INVALID_INPUT, y);
+    EXPECT_OUT(ad_stall_eas((ad_real)1e5, (ad_real)50, (ad_real)0, (ad_real)1, &y),
+               AD_INVALID_INPUT, y);
+    EXPECT_OUT(ad_stall_eas((ad_real)2e7, (ad_real)NAN, (ad_real)1, (ad_real)1, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_stall_eas((ad_real)1e7, (ad_real)1e-6, (ad_real)1e-6, (ad_real)1, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT(ad_stall_eas((ad_real)1, (ad_real)1, (ad_real)1, (ad_real)1, NULL)
+           == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_stall_mach((ad_real)1e5, (ad_real)50, (ad_real)1.5, (ad_real)20000,
+                             (ad_real)1, &y), AD_OK, y);
+    EXPECT_OUT(ad_stall_mach((ad_real)1e5, (ad_real)50, (ad_real)1.5, (ad_real)0.5,
+                             (ad_real)1, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_stall_mach((ad_real)1e5, (ad_real)50, (ad_real)1.5, (ad_real)0,
+                             (ad_real)-1, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_stall_mach((ad_real)1, (ad_real)1, (ad_real)1, (ad_real)1, (ad_real)1, NULL)
+           == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_stall_cas((ad_real)7.9e6, (ad_real)1, (ad_real)1, (ad_real)177000,
+                            (ad_real)1, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_stall_cas((ad_real)1e5, (ad_real)50, (ad_real)1.5, (ad_real)1000,
+                            (ad_real)11, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_stall_cas((ad_real)1, (ad_real)1, (ad_real)1, (ad_real)1, (ad_real)1, NULL)
+           == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_stall_tas((ad_real)1e5, (ad_real)50, (ad_real)1.5, (ad_real)20000,
+                            (ad_real)220, (ad_real)1, &y), AD_OK, y);
+    EXPECT_OUT(ad_stall_tas((ad_real)1e5, (ad_real)50, (ad_real)1.5, (ad_real)20000,
+                            (ad_real)20, (ad_real)NAN, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_stall_tas((ad_real)1, (ad_real)1, (ad_real)1, (ad_real)1, (ad_real)250,
+                        (ad_real)1, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_operating_limits(void)
+{
+    ad_real y = (ad_real)0;
+    ad_real h = (ad_real)0;
+    ad_real px = (ad_real)0;
+    EXPECT_OUT(ad_crossover_altitude((ad_real)160, (ad_real)0.8, &h), AD_OK, h);
+    EXPECT(ad_pressure_at_altitude(h, &px) == AD_OK);
+    EXPECT_OUT(ad_max_operating_cas(px * (ad_real)1.01, (ad_real)160, (ad_real)0.8, &y),
+               AD_OK, y);
+    EXPECT(y == (ad_real)160);
+    EXPECT_OUT(ad_max_operating_mach(px * (ad_real)0.99, (ad_real)160, (ad_real)0.8, &y),
+               AD_OK, y);
+    EXPECT(y == (ad_real)0.8);
+    EXPECT_OUT(ad_crossover_altitude((ad_real)160, (ad_real)1, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_crossover_altitude((ad_real)3500, (ad_real)0.8, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_crossover_altitude((ad_real)400, (ad_real)0.3, &y), AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_crossover_altitude((ad_real)0, (ad_real)2, &y), AD_INVALID_INPUT, y);
+    EXPECT(ad_crossover_altitude((ad_real)160, (ad_real)0.8, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_max_operating_cas((ad_real)5000, (ad_real)160, (ad_real)2, &y), AD_OK, y);
+    EXPECT_OUT(ad_max_operating_cas((ad_real)5e4, (ad_real)3500, (ad_real)0.8, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT_OUT(ad_max_operating_cas((ad_real)5e4, (ad_real)150, (ad_real)0, &y),
+               AD_INVALID_INPUT, y);
+    EXPECT(ad_max_operating_cas((ad_real)1, (ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_max_operating_mach((ad_real)1e5, (ad_real)300, (ad_real)11, &y),
+               AD_OUT_OF_RANGE, y);
+    EXPECT(ad_max_operating_mach((ad_real)1, (ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+    EXPECT_OUT(ad_ceiling_margin((ad_real)101325, (ad_real)12000, &y), AD_OK, y);
+    EXPECT(fabs((double)y - 12000.0) < 1e-3); /* H(p0) = 0, ICAO Doc 7488 */
+    EXPECT_OUT(ad_ceiling_margin((ad_real)101325, (ad_real)1e5, &y), AD_OUT_OF_RANGE, y);
+    EXPECT(ad_ceiling_margin((ad_real)1, (ad_real)1, NULL) == AD_INVALID_INPUT);
+}
+
+static void test_batch_limits(void)
+{
+    const ad_real w[NB] = { (ad_real)1e5, (ad_real)-1, (ad_real)6e5, (ad_real)NAN };
+    const ad_real s[NB] = { (ad_real)50, (ad_real)50, (ad_real)120, (ad_real)50 };
+    const ad_real cl[NB] = { (ad_real)1.5, (ad_real)1.5, (ad_real)2.4, (ad_real)1.5 };
+    const ad_real n[NB] = { (ad_real)1, (ad_real)1, (ad_real)2.5, (ad_real)1 };
+    const ad_real ps[NB] = { (ad_real)101325, (ad_real)20000, (ad_real)3000, (ad_real)0 };
+    const ad_real sat[NB] = { (ad_real)288, (ad_real)220, (ad_real)230, (ad_real)250 };
+    const ad_real cas[NB] = { (ad_real)160, (ad_real)3500, (ad_real)250, (ad_real)200 };
+    const ad_real m[NB] = { (ad_real)0.8, (ad_real)0.8, (ad_real)0.999, (ad_real)1 };
+    ad_real y[NB];
+    unsigned char st[NB];
+    EXPECT(ad_stall_eas_n(w, s, cl, n, y, st, NB) == 2U);
+    EXPECT((st[1] == AD_INVALID_INPUT) && isnan(y[1]) && isfinite(y[2]));
+    EXPECT(ad_stall_mach_n(w, s, cl, ps, n, y, st, NB) == 2U);
+    EXPECT(ad_stall_cas_n(w, s, cl, ps, n, y, st, NB) == 2U);
+    EXPECT(ad_stall_tas_n(w, s, cl, ps, sat, n, y, st, NB) == 2U);
+    EXPECT(ad_crossover_altitude_n(cas, m, y, st, NB) == 2U);
+    EXPECT(ad_max_operating_cas_n(ps, cas, m, y, st, NB) == 2U);
+    EXPECT(ad_max_operating_mach_n(ps, cas, m, y, st, NB) == 2U);
+    EXPECT(ad_ceiling_margin_n(ps, cas, y, st, NB) == 1U);
+    EXPECT(ad_check_n(AD_DOM_WEIGHT, w, st, NB) == 2U);
+    EXPECT(ad_check_n(AD_DOM_SUBSONIC_MACH_LIMIT, m, st, NB) == 0U);
+    EXPECT(ad_stall_eas_n(w, s, NULL, n, y, st, NB) == AD_BATCH_NULL);
+    EXPECT(ad_stall_tas_n(w, s, cl, ps, sat, n, y, NULL, NB) == AD_BATCH_NULL);
+    EXPECT(ad_crossover_altitude_n(cas, m, NULL, st, NB) == AD_BATCH_NULL);
+    EXPECT(ad_max_operating_mach_n(ps, NULL, m, y, st, NB) == AD_BATCH_NULL);
+    EXPECT(ad_ceiling_margin_n(ps, cas, y, st, 0U) == 0U);
+}
+
 int main(void)
 {
     test_double_double();
@@ -340,6 +449,9 @@ int main(void)
     test_batch_one_input();
     test_batch_two_inputs();
     test_batch_records();
+    test_stall();
+    test_operating_limits();
+    test_batch_limits();
     (void)printf("%s: %d failure(s)\n", failures == 0 ? "PASS" : "FAIL", failures);
     return (failures == 0) ? 0 : 1;
 }

@@ -57,6 +57,7 @@ KERNEL_LITERALS = {
     "AD_K_S3": ("-0.2316", "start-value coefficient of the supersonic solver (x^3)"),
     "AD_K_5_14": ("5/14", "2.5/7, start-value offset of the supersonic solver"),
     "AD_K_1": ("1", "one"),
+    "AD_K_2": ("2", "factor 2 of the lift equation, q = rho0 eas^2 / 2"),
     "AD_K_2P5": ("2.5", "exponent 1/(gamma - 1)"),
     "AD_K_3P5": ("3.5", "exponent gamma/(gamma - 1)"),
     "AD_K_5": ("5", "2/(gamma - 1)"),
@@ -214,13 +215,18 @@ def binary64(profile) -> dict[str, object]:  # noqa: ANN001
 
 
 def domains(profile, single: bool, ex: dict[str, object]) -> list[tuple[str, float, float]]:  # noqa: ANN001
-    """Range ends of airdata._domains (and of the chain's own inputs)."""
+    """Range ends of airdata._domains (and of the chain's and limits' own inputs)."""
     dom = _mod("airdata._domains")
     chain = _mod("airdata.chain")
     fixed = {"MACH": dom.MACH, "SPEED": dom.SPEED, "TEMPERATURE": dom.TEMPERATURE,
              "DELTA_T": dom.DELTA_T, "RECOVERY": dom.RECOVERY,
              "IMPACT_PRESSURE": dom.IMPACT_PRESSURE, "ELEVATION": dom.ELEVATION,
              "TOTAL_PRESSURE": chain._TOTAL_PRESSURE, "NOISE_BAND": chain._NOISE}
+    lim = _mod("airdata.limits")
+    fixed.update({"WEIGHT": lim.WEIGHT, "WING_AREA": lim.WING_AREA, "CL_MAX": lim.CL_MAX,
+                  "LOAD_FACTOR": lim.LOAD_FACTOR, "CAS_LIMIT": lim.CAS_LIMIT,
+                  "MACH_LIMIT": lim.MACH_LIMIT,
+                  "SUBSONIC_MACH_LIMIT": lim.SUBSONIC_MACH_LIMIT})
     out = []
     for name, dm in fixed.items():
         lo, hi = (f32(repr(dm.lo)), f32(repr(dm.hi))) if single else (dm.lo, dm.hi)

@@ -1,0 +1,267 @@
+/*
+ * limits.c - flight-envelope limits (LIM-1 .. LIM-5), mirroring airdata/limits.py;
+ * gamma = 1.4.  f(M) = qc/ps of PIT-1 (ad_i_ratio_from_mach), F^-1 its inverse
+ * (ad_i_mach_from_ratio), H(ps) the pressure altitude of ALT-1
+ * (ad_i_altitude_of_pressure).
+ *
+ *   LIM-1  eas = sqrt(2 n W / (rho0 S CLmax))              (lift equation, EAS)
+ *   LIM-2  M = eas / (a0 sqrt(ps/p0)), cas = a0 F^-1(ps f(M)/p0), tas = M sqrt(gamma R sat)
+ *   LIM-3  crossover: qc = p0 f(cas/a0), ps = qc / f(M), h = H(ps)
+ *   LIM-4  maximum operating CAS/Mach: the lower limit, compared through impact pressure
+ *   LIM-5  ceiling margin = ceiling - H(ps)
+ *
+ * Special cases (every function): a NULL output pointer gives AD_INVALID_INPUT and
+ * nothing is written; arguments are checked in the order they are declared, then the
+ * derived quantities, in this order: stall EAS <= 4000 m/s (AD_SPEED_HI), stall Mach
+ * <= 10 (AD_MACH_HI), stall qc/p0 <= AD_RATIO_MAX (CAS <= 10 a0); crossover Mach limit
+ * < 1, cas_limit/a0 <= 10, crossover pressure within [AD_PRESSURE_LO, AD_PRESSURE_HI];
+ * maximum operating cas_limit/a0 <= 10.  As in the reference, these derived checks
+ * are exact (no slack).  A bad one gives its status and a NaN output.
+ *
+ * Rounding: each result is a handful of correctly rounded operations plus the
+ * kernels of pitot.c and altimetry.c (their bounds are written there); the vectors
+ * bound the whole within k = 8 condition-scaled units.
+ */
+#include "ad_internal.h"
+
+/* Status of two arguments, in order. */
+static ad_status ad_lim_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id db)
+{
+    ad_status st = ad_i_check(a, da);
+    if (st == AD_OK) {
+        st = ad_i_check(b, db);
+    }
+    return st;
+}
+
+/* Status of three arguments, in order. */
+static ad_status ad_lim_check3(ad_real a, ad_domain_id da, ad_real b, ad_domain_id db,
+                           ad_real c, ad_domain_id dc)
+{
+    ad_status st = ad_lim_check2(a, da, b, db);
+    if (st == AD_OK) {
+        st = ad_i_check(c, dc);
+    }
+    return st;
+}
+
+/* Status of weight, wing area and CLmax, the first three arguments of every stall
+ * function. */
+static ad_status ad_check_wing(ad_real w, ad_real s, ad_real cl)
+{
+    return ad_lim_check3(w, AD_DOM_WEIGHT, s, AD_DOM_WING_AREA, cl, AD_DOM_CL_MAX);
+}
+
+/* LIM-1 on checked arguments; derived check eas <= AD_SPEED_HI. */
+static ad_status ad_stall_eas_i(ad_real w, ad_real s, ad_real cl, ad_real n, ad_real *eas)
+{
+    *eas = ad_sqrt(((AD_K_2 * n) * w) / ((AD_RHO0 * s) * cl));
+    return (*eas > AD_SPEED_HI) ? AD_OUT_OF_RANGE : AD_OK;
+}
+
+/* LIM-2 Mach number on checked arguments; derived checks of LIM-1, then M <= 10. */
+static ad_status ad_stall_mach_i(ad_real w, ad_real s, ad_real cl, ad_real n, ad_real ps,
+                                 ad_real *mach)
+{
+    ad_real eas = (ad_real)0;
+    ad_status st = ad_stall_eas_i(w, s, cl, n, &eas);
+    *mach = (ad_real)0;
+    if (st == AD_OK) {
+        *mach = eas / (AD_A0 * ad_sqrt(ps / AD_P0));
+        st = (*mach > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
+    }
+    return st;
+}
+
+/* LIM-1: stall EAS, the same at every altitude. */
+ad_status ad_stall_eas(ad_real weight, ad_real wing_area, ad_real cl_max,
+                       ad_real load_factor, ad_real *eas)
+{
+    ad_status st;
+    ad_real y = (ad_real)0;
+    if (eas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_check_wing(weight, wing_area, cl_max);
+    if (st == AD_OK) {
+        st = ad_i_check(load_factor, AD_DOM_LOAD_FACTOR);
+    }
+    if (st == AD_OK) {
+        st = ad_stall_eas_i(weight, wing_area, cl_max, load_factor, &y);
+    }
+    *eas = (st == AD_OK) ? y : ad_nan();
+    return st;
+}
+
+/* LIM-2: stall Mach number at ps (SPD-2 inverted). */
+ad_status ad_stall_mach(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                        ad_real load_factor, ad_real *mach)
+{
+    ad_status st;
+    ad_real m = (ad_real)0;
+    if (mach == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_check_wing(weight, wing_area, cl_max);
+    if (st == AD_OK) {
+        st = ad_lim_check2(ps, AD_DOM_PRESSURE, load_factor, AD_DOM_LOAD_FACTOR);
+    }
+    if (st == AD_OK) {
+        st = ad_stall_mach_i(weight, wing_area, cl_max, load_factor, ps, &m);
+    }
+    *mach = (st == AD_OK) ? m : ad_nan();
+    return st;
+}
+
+/* LIM-2: stall CAS at ps, cas = a0 F^-1(ps f(M)/p0) (SPD-1); derived check last:
+ * qc/p0 <= AD_RATIO_MAX. */
+ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                       ad_real load_factor, ad_real *cas)
+{
+    ad_status st;
+    ad_real m = (ad_real)0;
+    ad_real x = (ad_real)0;
+    if (cas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_check_wing(weight, wing_area, cl_max);
+    if (st == AD_OK) {
+        st = ad_lim_check2(ps, AD_DOM_PRESSURE, load_factor, AD_DOM_LOAD_FACTOR);
+    }
+    if (st == AD_OK) {
+        st = ad_stall_mach_i(weight, wing_area, cl_max, load_factor, ps, &m);
+    }
+    if (st == AD_OK) {
+        x = ps * ad_i_ratio_from_mach(m) / AD_P0;
+        st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
+    }
+    *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_ratio(x)) : ad_nan();
+    return st;
+}
+
+/* LIM-2: stall TAS at ps and sat, tas = M sqrt(gamma R sat) (SPD-3). */
+ad_status ad_stall_tas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                       ad_real sat, ad_real load_factor, ad_real *tas)
+{
+    ad_status st;
+    ad_real m = (ad_real)0;
+    if (tas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_check_wing(weight, wing_area, cl_max);
+    if (st == AD_OK) {
+        st = ad_lim_check3(ps, AD_DOM_PRESSURE, sat, AD_DOM_TEMPERATURE,
+                       load_factor, AD_DOM_LOAD_FACTOR);
+    }
+    if (st == AD_OK) {
+        st = ad_stall_mach_i(weight, wing_area, cl_max, load_factor, ps, &m);
+    }
+    *tas = (st == AD_OK) ? (m * ad_sqrt(AD_GAMMA_R * sat)) : ad_nan();
+    return st;
+}
+
+/* PIT-3 on a checked CAS limit: qc = p0 f(cas/a0); derived check cas/a0 <= 10. */
+static ad_status ad_cas_limit_qc(ad_real cas_limit, ad_real *qc)
+{
+    const ad_real m0 = cas_limit / AD_A0;
+    const ad_status st = (m0 > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
+    *qc = (st == AD_OK) ? (AD_P0 * ad_i_ratio_from_mach(m0)) : (ad_real)0;
+    return st;
+}
+
+/* LIM-3: pressure altitude where a CAS limit and a subsonic Mach limit coincide.
+ * Derived checks in order: mach_limit < 1, cas_limit/a0 <= 10, crossover pressure in
+ * the pressure range. */
+ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *h)
+{
+    ad_status st;
+    ad_real qc = (ad_real)0;
+    ad_real ps = (ad_real)0;
+    if (h == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_lim_check2(cas_limit, AD_DOM_CAS_LIMIT, mach_limit, AD_DOM_SUBSONIC_MACH_LIMIT);
+    if (st == AD_OK) {
+        st = (mach_limit >= AD_K_1) ? AD_OUT_OF_RANGE : AD_OK;
+    }
+    if (st == AD_OK) {
+        st = ad_cas_limit_qc(cas_limit, &qc);
+    }
+    if (st == AD_OK) {
+        ps = qc / ad_i_ratio_from_mach(mach_limit);
+        st = ((ps < AD_PRESSURE_LO) || (ps > AD_PRESSURE_HI)) ? AD_OUT_OF_RANGE : AD_OK;
+    }
+    *h = (st == AD_OK) ? ad_i_altitude_of_pressure(ps) : ad_nan();
+    return st;
+}
+
+/* LIM-4 arguments (ps, cas_limit, mach_limit) checked in order, then cas_limit/a0;
+ * the impact pressures of the two limits at ps. */
+static ad_status ad_limit_qc(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                             ad_real *qc_cas, ad_real *qc_mach)
+{
+    ad_status st = ad_lim_check3(ps, AD_DOM_PRESSURE, cas_limit, AD_DOM_CAS_LIMIT,
+                             mach_limit, AD_DOM_MACH_LIMIT);
+    *qc_cas = (ad_real)0;
+    *qc_mach = (ad_real)0;
+    if (st == AD_OK) {
+        st = ad_cas_limit_qc(cas_limit, qc_cas);
+    }
+    if (st == AD_OK) {
+        *qc_mach = ps * ad_i_ratio_from_mach(mach_limit);
+    }
+    return st;
+}
+
+/* LIM-4: maximum operating CAS at ps: cas_limit where qc_cas <= qc_mach, else
+ * a0 F^-1(qc_mach/p0) (then qc_mach/p0 < qc_cas/p0 <= AD_RATIO_MAX). */
+ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                               ad_real *cas)
+{
+    ad_status st;
+    ad_real qc_cas = (ad_real)0;
+    ad_real qc_mach = (ad_real)0;
+    ad_real y = (ad_real)0;
+    if (cas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_limit_qc(ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
+    if (st == AD_OK) {
+        y = (qc_cas <= qc_mach) ? cas_limit
+                                : (AD_A0 * ad_i_mach_from_ratio(qc_mach / AD_P0));
+    }
+    *cas = (st == AD_OK) ? y : ad_nan();
+    return st;
+}
+
+/* LIM-4: maximum operating Mach number at ps: mach_limit where qc_mach <= qc_cas, else
+ * F^-1(qc_cas/ps) (then qc_cas/ps < qc_mach/ps <= AD_RATIO_MAX). */
+ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                                ad_real *mach)
+{
+    ad_status st;
+    ad_real qc_cas = (ad_real)0;
+    ad_real qc_mach = (ad_real)0;
+    ad_real y = (ad_real)0;
+    if (mach == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_limit_qc(ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
+    if (st == AD_OK) {
+        y = (qc_mach <= qc_cas) ? mach_limit : ad_i_mach_from_ratio(qc_cas / ps);
+    }
+    *mach = (st == AD_OK) ? y : ad_nan();
+    return st;
+}
+
+/* LIM-5: margin to a maximum altitude given as a pressure altitude, ceiling - H(ps). */
+ad_status ad_ceiling_margin(ad_real ps, ad_real ceiling, ad_real *margin)
+{
+    ad_status st;
+    if (margin == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    st = ad_lim_check2(ps, AD_DOM_PRESSURE, ceiling, AD_DOM_ALTITUDE);
+    *margin = (st == AD_OK) ? (ceiling - ad_i_altitude_of_pressure(ps)) : ad_nan();
+    return st;
+}
