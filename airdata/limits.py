@@ -17,6 +17,12 @@ LIM-4  maximum operating CAS and Mach at ps: the lower of the two limits, compar
 LIM-5  maximum altitude as a fixed pressure altitude: the margin to it is
        ceiling - H(ps), whatever the temperature or the altimeter setting.
 
+Tiny speeds: below Mach 2^-40 (``pitot.TINY_MACH``) a Mach <-> CAS conversion takes
+its linear limit (``pitot.convert_mach``, as SPD-1 does), and where both limits of LIM-3
+or LIM-4 are that small, where their impact pressures may underflow, the comparison
+and the crossover pressure take the linear limit qc = 0.7 p M^2 too:
+M sqrt(ps/p0) against cas/a0, ps = p0 (cas/(a0 M))^2.
+
 The kernels follow the pattern of :mod:`airdata.speeds` (argument order, statuses,
 ``strict``) so that they port one to one to C.
 
@@ -41,7 +47,7 @@ from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
 from .aircraft import Aircraft
 from .altimetry import altitude_of_pressure
 from .atmosphere import atmosphere, layer_table
-from .pitot import RATIO_MAX, mach_from_ratio, ratio_from_mach
+from .pitot import RATIO_MAX, TINY_MACH, convert_mach, ratio_from_mach
 from .profiles import GAMMA, Profile, get_profile
 from .status import DomainError, Status
 
@@ -245,7 +251,8 @@ def stall_cas(
 
     Notes
     -----
-    LIM-2: cas = a0 F^-1(ps f(M)/p0) with M from :func:`stall_mach` (SPD-1).
+    LIM-2: cas = a0 F^-1(ps f(M)/p0) with M from :func:`stall_mach` (SPD-1; the linear
+    limit below M = 2^-40).
 
     References
     ----------
@@ -258,7 +265,8 @@ def stall_cas(
     x = args["ps"] * ratio_from_mach(m) / prof.p0
     over = x > RATIO_MAX
     args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
-    return args.finish(prof.a0 * mach_from_ratio(np.where(over, 0.0, x)))
+    return args.finish(prof.a0 * convert_mach(m, args["ps"] / prof.p0,
+                                              np.where(over, 0.0, x)))
 
 
 def stall_tas(
@@ -374,7 +382,11 @@ def crossover_altitude(
     args.flag(sonic, Status.OUT_OF_RANGE, "mach_limit", args["mach_limit"],
               "(0, 1) (subsonic crossover)")
     qc = _cas_limit_qc(args, prof)
-    ps = qc / ratio_from_mach(np.where(sonic, 0.5, args["mach_limit"]))
+    m = np.where(sonic, 0.5, args["mach_limit"])
+    m0 = np.where(args["cas_limit"] / prof.a0 > dom.MACH_MAX, 0.0, args["cas_limit"] / prof.a0)
+    tiny = (m0 < TINY_MACH) & (m < TINY_MACH)
+    ps = np.where(tiny, prof.p0 * (m0 / m) ** 2,
+                  qc / ratio_from_mach(np.where(tiny, 0.5, m)))
     prange = dom.pressure(prof)
     out = (ps < prange.lo) | (ps > prange.hi)
     args.flag(out, Status.OUT_OF_RANGE, "crossover pressure", ps, prange.describe())
@@ -389,6 +401,13 @@ def _limit_args(strict: bool, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: A
     qc_cas = _cas_limit_qc(args, prof)
     qc_mach = args["ps"] * ratio_from_mach(args["mach_limit"])
     return args, qc_cas, qc_mach
+
+
+def _tiny_limits(args: Inputs, prof: Profile) -> tuple[NDArray[np.bool_], F64, F64]:
+    """Where both limits are below Mach 2^-40: the mask, cas/a0 and M sqrt(ps/p0)."""
+    m0 = args["cas_limit"] / prof.a0
+    m = args["mach_limit"]
+    return (m0 < TINY_MACH) & (m < TINY_MACH), m0, m * np.sqrt(args["ps"] / prof.p0)
 
 
 def max_operating_cas(
@@ -436,9 +455,11 @@ def max_operating_cas(
     """
     prof = get_profile(profile)
     args, qc_cas, qc_mach = _limit_args(strict, ps, cas_limit, mach_limit, prof)
-    by_cas = qc_cas <= qc_mach
+    tiny, m0, m_eq = _tiny_limits(args, prof)
+    by_cas = np.where(tiny, m0 <= m_eq, qc_cas <= qc_mach)
     x = np.where(by_cas, 0.0, qc_mach / prof.p0)  # < qc_cas/p0 <= RATIO_MAX
-    return args.finish(np.where(by_cas, args["cas_limit"], prof.a0 * mach_from_ratio(x)))
+    cas = prof.a0 * convert_mach(args["mach_limit"], args["ps"] / prof.p0, x)
+    return args.finish(np.where(by_cas, args["cas_limit"], cas))
 
 
 def max_operating_mach(
@@ -486,9 +507,11 @@ def max_operating_mach(
     """
     prof = get_profile(profile)
     args, qc_cas, qc_mach = _limit_args(strict, ps, cas_limit, mach_limit, prof)
-    by_mach = qc_mach <= qc_cas
+    tiny, m0, m_eq = _tiny_limits(args, prof)
+    by_mach = np.where(tiny, m_eq <= m0, qc_mach <= qc_cas)
     x = np.where(by_mach, 0.0, qc_cas / args["ps"])  # < qc_mach/ps <= RATIO_MAX
-    return args.finish(np.where(by_mach, args["mach_limit"], mach_from_ratio(x)))
+    m = convert_mach(m0, prof.p0 / args["ps"], x)
+    return args.finish(np.where(by_mach, args["mach_limit"], m))
 
 
 def ceiling_margin(

@@ -207,6 +207,8 @@ def setting_col(c: Consts) -> Column:
 
 
 TINY = [1e-8, 1e-12, 2.0**-40, 1e-30, 1e-100]
+#: Mach 2^-40: below it the Mach <-> CAS conversions are linear (airdata/pitot.py).
+TINY_MACH = 2.0**-40
 
 
 def mach_col() -> Column:
@@ -486,7 +488,8 @@ def build_cases() -> dict[str, Case]:
 def _wing_cols() -> dict[str, Column]:
     """Weight, wing area, CLmax: the ends of their ranges, tiny values; log-uniform."""
     return {
-        "weight": Column([1.0e7, 1.0, 1.0e-3, 1.0e-100, 6.0e5], _log_uniform(1.0e-3, 1.0e7)),
+        "weight": Column([1.0e7, 1.0, 1.0e-3, 1.0e-100, 1.0e-290, 6.0e5],
+                         _log_uniform(1.0e-3, 1.0e7)),
         "wing_area": Column([2000.0, 1.0, 1.0e-3, 1.0e-50, 120.0], _log_uniform(1.0e-2, 2000.0)),
         "cl_max": Column([10.0, 1.0, 1.0e-3, 1.0e-50, 2.4],
                          _mixture(_uniform(0.1, 10.0), _log_uniform(1.0e-3, 10.0))),
@@ -543,7 +546,8 @@ def _limit_cases(c: Consts) -> list[Case]:
         # A crossover altitude (uniform over the model) and a Mach limit in (0, 1), and
         # the CAS limit whose crossover that is (library used to choose points only).
         cols = {"h": Column([*c.hb[1:], c.h_lo * top, c.h_hi * top, 0.0], h_col.draw),
-                "mach_limit": Column([math.nextafter(1.0, 0.0), 0.999, 0.5, 1e-3],
+                "mach_limit": Column([math.nextafter(1.0, 0.0), 0.999, 0.5, 1e-3, 1e-20,
+                                      1e-160, 1e-300],
                                      _mixture(_uniform(0.3, 1.0), _log_uniform(1e-3, 1.0)))}
         x = _combine(rng, n, cols)
         ps = np.asarray(airdata.pressure_at_altitude(x["h"], profile=name))
@@ -552,24 +556,28 @@ def _limit_cases(c: Consts) -> list[Case]:
         return {"cas_limit": cas, "mach_limit": x["mach_limit"]}
 
     def crossover_ok(cas: F64, m: F64) -> NDArray[np.bool_]:
-        ps = c.p0 * _pitot_ratio(cas / c.a0) / _pitot_ratio(m)
+        with np.errstate(all="ignore"):  # the linear limit where both are tiny
+            ps = np.where((m < TINY_MACH) & (cas / c.a0 < TINY_MACH),
+                          c.p0 * (cas / c.a0 / m) ** 2,
+                          c.p0 * _pitot_ratio(cas / c.a0) / _pitot_ratio(m))
         return ((cas <= 10.0 * c.a0 * top) & (m < 1.0) & (ps >= c.p_lo / top)
                 & (ps <= c.p_hi * top))
 
     out.append(_case("crossover_altitude", name, ("cas_limit", "mach_limit"),
                      crossover_sample, oracle.crossover_altitude, crossover_ok))
 
-    cas_col = Column([c.a0, 10.0 * c.a0 * top, 1e-6, 1.0, 150.0],
+    cas_col = Column([c.a0, 10.0 * c.a0 * top, 1e-6, 1.0, 150.0, 1e-20, 1e-160, 1e-300],
                      _mixture(_uniform(30.0, 700.0), _log_uniform(1e-3, 10.0 * c.a0 * top)))
-    mach_lim = Column([1.0, 10.0, 1e-6, 0.82, *_near([1.0])],
+    mach_lim = Column([1.0, 10.0, 1e-6, 0.82, 1e-20, 1e-160, 1e-300, *_near([1.0])],
                       _mixture(_uniform(0.2, 3.0), _log_uniform(1e-6, 10.0)))
 
     def max_op_sample(rng: np.random.Generator, n: int) -> dict[str, F64]:
         # Rows at the crossover pressure of a few (CAS, Mach) pairs and either side.
         rows = []
-        for cas, m in ((175.0, 0.82), (130.0, 0.6), (250.0, 0.9), (900.0, 3.0)):
-            px = c.p0 * float(_pitot_ratio(np.array(cas / c.a0))
-                              / _pitot_ratio(np.array(m)))
+        for cas, m in ((175.0, 0.82), (130.0, 0.6), (250.0, 0.9), (900.0, 3.0),
+                       (1e-150, 1e-152), (1e-13, 3e-16)):
+            px = c.p0 * (cas / c.a0 / m) ** 2 if m < TINY_MACH else c.p0 * float(
+                _pitot_ratio(np.array(cas / c.a0)) / _pitot_ratio(np.array(m)))
             rows += [(v, cas, m) for v in _near([px], 3) if c.p_lo <= v <= c.p_hi]
         return _combine(rng, n, {"ps": p_col, "cas_limit": cas_col, "mach_limit": mach_lim},
                         rows)

@@ -617,8 +617,9 @@ def _stall_extra(name: str) -> Callable[[Profile], list[CaseSeed]]:
         w_top = 0.5 * p.rho0 * 4000.0**2 * 0.5 * 1.0
         for v, _ in _derived_limit(w_top):
             add(("derived-limit", "extreme"), weight=v, wing_area=0.5, cl_max=1.0)
-        # Tiny stall speeds.
+        # Tiny stall speeds (the second below Mach 2^-40 at sea level: linear SPD-1).
         add(("tiny",), weight=1.0e-6, wing_area=2000.0, cl_max=10.0, load_factor=1e-3)
+        add(("tiny", "extreme"), weight=1.0e-300, wing_area=1.0, cl_max=1.0, ps=p.p0)
         if name == "stall_eas":
             return seeds
         # Stall speeds swept over pressure (the altitude column of an envelope).
@@ -668,6 +669,9 @@ def _extra_crossover(p: Profile) -> list[CaseSeed]:
     # CAS limit at 10 a0, just inside and outside.
     for v, _ in _derived_limit(10.0 * p.a0):
         seeds.append(CaseSeed({"cas_limit": v, "mach_limit": 0.999}, ("derived-limit",)))
+    # Both limits below Mach 2^-40 (linear pitot relation): a crossover near 2000 m.
+    seeds.append(CaseSeed({"cas_limit": 3.0e-158, "mach_limit": 1.0e-160}, ("tiny", "extreme")))
+    seeds.append(CaseSeed({"cas_limit": 1.0e-15, "mach_limit": 3.0e-18}, ("tiny",)))
     return seeds
 
 
@@ -689,6 +693,11 @@ def _extra_max_operating(p: Profile) -> list[CaseSeed]:
         seeds.append(CaseSeed({"ps": p.p0, "cas_limit": v, "mach_limit": 0.8},
                               ("derived-limit", "extreme")))
     seeds.append(CaseSeed({"ps": p.p0, "cas_limit": 1e-6, "mach_limit": 1e-8}, ("tiny",)))
+    # Below Mach 2^-40: either limit governing, the other one not tiny or tiny too.
+    for cas, m in ((1.0e-150, 1.0e-155), (1.0e-160, 1.0e-150), (1.0e-13, 5.0e-16),
+                   (150.0, 1.0e-20), (1.0e-20, 0.8)):
+        seeds.append(CaseSeed({"ps": 0.25 * p.p0, "cas_limit": cas, "mach_limit": m},
+                              ("tiny",) + (("extreme",) if min(cas, m) < 1e-100 else ())))
     return seeds
 
 

@@ -18,11 +18,26 @@
  * maximum operating cas_limit/a0 <= 10.  As in the reference, these derived checks
  * are exact (no slack).  A bad one gives its status and a NaN output.
  *
+ * Tiny speeds (airdata/limits.py): below Mach 2^-40 a Mach <-> CAS conversion takes
+ * its linear limit (ad_i_convert_mach, as SPD-1 does), and where both limits of LIM-3
+ * or LIM-4 are that small (their impact pressures may underflow) the comparison and
+ * the crossover pressure take the linear limit qc = 0.7 p M^2 as well:
+ * M sqrt(ps/p0) against cas/a0, and ps = p0 (cas/(a0 M))^2.
+ *
  * Rounding: each result is a handful of correctly rounded operations plus the
  * kernels of pitot.c and altimetry.c (their bounds are written there); the vectors
  * bound the whole within k = 8 condition-scaled units.
  */
 #include "ad_internal.h"
+
+/* 2^-40, exact in both precisions: pitot.c AD_TINY_MACH, airdata/pitot.py TINY_MACH. */
+#define AD_LIM_TINY_MACH ((ad_real)0x1p-40)
+
+/* 1 when both Mach numbers are below AD_LIM_TINY_MACH. */
+static int ad_both_tiny(ad_real m0, ad_real m)
+{
+    return ((m0 < AD_LIM_TINY_MACH) && (m < AD_LIM_TINY_MACH)) ? 1 : 0;
+}
 
 /* Status of two arguments, in order. */
 static ad_status ad_lim_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id db)
@@ -113,8 +128,8 @@ ad_status ad_stall_mach(ad_real weight, ad_real wing_area, ad_real cl_max, ad_re
     return st;
 }
 
-/* LIM-2: stall CAS at ps, cas = a0 F^-1(ps f(M)/p0) (SPD-1); derived check last:
- * qc/p0 <= AD_RATIO_MAX. */
+/* LIM-2: stall CAS at ps, cas = a0 F^-1(ps f(M)/p0) (SPD-1, linear below M = 2^-40);
+ * derived check last: qc/p0 <= AD_RATIO_MAX. */
 ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
                        ad_real load_factor, ad_real *cas)
 {
@@ -135,7 +150,7 @@ ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_rea
         x = ps * ad_i_ratio_from_mach(m) / AD_P0;
         st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_ratio(x)) : ad_nan();
+    *cas = (st == AD_OK) ? (AD_A0 * ad_i_convert_mach(m, ps / AD_P0, x)) : ad_nan();
     return st;
 }
 
@@ -188,7 +203,10 @@ ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *
         st = ad_cas_limit_qc(cas_limit, &qc);
     }
     if (st == AD_OK) {
-        ps = qc / ad_i_ratio_from_mach(mach_limit);
+        const ad_real m0 = cas_limit / AD_A0;
+        const ad_real r = m0 / mach_limit;
+        ps = ad_both_tiny(m0, mach_limit) ? (AD_P0 * (r * r))
+                                          : (qc / ad_i_ratio_from_mach(mach_limit));
         st = ((ps < AD_PRESSURE_LO) || (ps > AD_PRESSURE_HI)) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *h = (st == AD_OK) ? ad_i_altitude_of_pressure(ps) : ad_nan();
@@ -213,8 +231,39 @@ static ad_status ad_limit_qc(ad_real ps, ad_real cas_limit, ad_real mach_limit,
     return st;
 }
 
-/* LIM-4: maximum operating CAS at ps: cas_limit where qc_cas <= qc_mach, else
- * a0 F^-1(qc_mach/p0) (then qc_mach/p0 < qc_cas/p0 <= AD_RATIO_MAX). */
+/* LIM-4: 1 where the CAS limit governs at ps: qc_cas <= qc_mach, or, both limits
+ * below Mach 2^-40, cas/a0 <= M sqrt(ps/p0). */
+static int ad_cas_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                          ad_real qc_cas, ad_real qc_mach)
+{
+    const ad_real m0 = cas_limit / AD_A0;
+    int by_cas;
+    if (ad_both_tiny(m0, mach_limit) != 0) {
+        by_cas = (m0 <= mach_limit * ad_sqrt(ps / AD_P0)) ? 1 : 0;
+    } else {
+        by_cas = (qc_cas <= qc_mach) ? 1 : 0;
+    }
+    return by_cas;
+}
+
+/* LIM-4: 1 where the Mach limit governs at ps: qc_mach <= qc_cas, or, both limits
+ * below Mach 2^-40, M sqrt(ps/p0) <= cas/a0 (ties go to the limit asked for). */
+static int ad_mach_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                           ad_real qc_cas, ad_real qc_mach)
+{
+    const ad_real m0 = cas_limit / AD_A0;
+    int by_mach;
+    if (ad_both_tiny(m0, mach_limit) != 0) {
+        by_mach = (mach_limit * ad_sqrt(ps / AD_P0) <= m0) ? 1 : 0;
+    } else {
+        by_mach = (qc_mach <= qc_cas) ? 1 : 0;
+    }
+    return by_mach;
+}
+
+/* LIM-4: maximum operating CAS at ps: cas_limit where it governs, else the CAS of the
+ * Mach limit, a0 F^-1(qc_mach/p0) (SPD-1, linear below M = 2^-40; then
+ * qc_mach/p0 < qc_cas/p0 <= AD_RATIO_MAX). */
 ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit,
                                ad_real *cas)
 {
@@ -227,15 +276,17 @@ ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit
     }
     st = ad_limit_qc(ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
     if (st == AD_OK) {
-        y = (qc_cas <= qc_mach) ? cas_limit
-                                : (AD_A0 * ad_i_mach_from_ratio(qc_mach / AD_P0));
+        y = (ad_cas_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach) != 0)
+                ? cas_limit
+                : (AD_A0 * ad_i_convert_mach(mach_limit, ps / AD_P0, qc_mach / AD_P0));
     }
     *cas = (st == AD_OK) ? y : ad_nan();
     return st;
 }
 
-/* LIM-4: maximum operating Mach number at ps: mach_limit where qc_mach <= qc_cas, else
- * F^-1(qc_cas/ps) (then qc_cas/ps < qc_mach/ps <= AD_RATIO_MAX). */
+/* LIM-4: maximum operating Mach number at ps: mach_limit where it governs, else the
+ * Mach number of the CAS limit, F^-1(qc_cas/ps) (SPD-1 inverted, linear below
+ * cas/a0 = 2^-40; then qc_cas/ps < qc_mach/ps <= AD_RATIO_MAX). */
 ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limit,
                                 ad_real *mach)
 {
@@ -248,7 +299,9 @@ ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limi
     }
     st = ad_limit_qc(ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
     if (st == AD_OK) {
-        y = (qc_mach <= qc_cas) ? mach_limit : ad_i_mach_from_ratio(qc_cas / ps);
+        y = (ad_mach_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach) != 0)
+                ? mach_limit
+                : ad_i_convert_mach(cas_limit / AD_A0, AD_P0 / ps, qc_cas / ps);
     }
     *mach = (st == AD_OK) ? y : ad_nan();
     return st;
