@@ -79,9 +79,27 @@ MACH_LIMIT = Domain(0.0, dom.MACH_MAX, "", "positive", 0.8)
 SUBSONIC_MACH_LIMIT = Domain(0.0, 1.0, "", "positive", 0.8)
 
 
+#: Smallest normal binary64 number: below it a product loses relative precision.
+_NORMAL_MIN = float(np.finfo(np.float64).tiny)
+
+
 def _stall_eas_kernel(w: F64, s: F64, cl: F64, n: F64, rho0: float) -> F64:
-    """LIM-1: sqrt(2 n W / (rho0 S CL))."""
-    return np.sqrt((2.0 * n * w) / (rho0 * s * cl))
+    """LIM-1: sqrt(2 n W / (rho0 S CL)).
+
+    Where 2 n W, rho0 S CL or their quotient falls below the smallest normal number
+    (tiny but valid inputs), the same from the square roots of the factors,
+    (sqrt(2 n) / (sqrt(rho0) sqrt(S))) (sqrt(W) / sqrt(CL)), which has no subnormal
+    intermediate while the result itself is normal.
+    """
+    with np.errstate(divide="ignore", over="ignore", invalid="ignore"):
+        num = (2.0 * n) * w
+        den = (rho0 * s) * cl
+        q = num / den
+        small = (num < _NORMAL_MIN) | (den < _NORMAL_MIN) | (q < _NORMAL_MIN)
+        if not small.any():
+            return np.sqrt(q)
+        root = (np.sqrt(2.0 * n) / (np.sqrt(rho0) * np.sqrt(s))) * (np.sqrt(w) / np.sqrt(cl))
+        return np.where(small, root, np.sqrt(q))
 
 
 def _stall_args(strict: bool, weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike,

@@ -488,17 +488,17 @@ def build_cases() -> dict[str, Case]:
 def _wing_cols() -> dict[str, Column]:
     """Weight, wing area, CLmax: the ends of their ranges, tiny values; log-uniform."""
     return {
-        "weight": Column([1.0e7, 1.0, 1.0e-3, 1.0e-100, 1.0e-290, 6.0e5],
+        "weight": Column([1.0e7, 1.0, 1.0e-3, 1.0e-100, 1.0e-290, 1.0e-310, 5e-324, 6.0e5],
                          _log_uniform(1.0e-3, 1.0e7)),
         "wing_area": Column([2000.0, 1.0, 1.0e-3, 1.0e-50, 120.0], _log_uniform(1.0e-2, 2000.0)),
-        "cl_max": Column([10.0, 1.0, 1.0e-3, 1.0e-50, 2.4],
+        "cl_max": Column([10.0, 1.0, 1.0e-3, 1.0e-50, 1.0e-307, 2.4],
                          _mixture(_uniform(0.1, 10.0), _log_uniform(1.0e-3, 10.0))),
     }
 
 
 def _load_col() -> Column:
     """Load factor: 1, the top of its range, tiny values; uniform or exactly 1."""
-    return Column([1.0, 10.0, 1.0e-3, 1.0e-50, 2.5],
+    return Column([1.0, 10.0, 1.0e-3, 1.0e-50, 1.0e-305, 5e-324, 2.5],
                   _mixture(_uniform(0.1, 10.0), lambda r, k: np.ones(k)))
 
 

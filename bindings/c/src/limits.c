@@ -67,10 +67,28 @@ static ad_status ad_check_wing(ad_real w, ad_real s, ad_real cl)
     return ad_lim_check3(w, AD_DOM_WEIGHT, s, AD_DOM_WING_AREA, cl, AD_DOM_CL_MAX);
 }
 
-/* LIM-1 on checked arguments; derived check eas <= AD_SPEED_HI. */
+/* Smallest normal number of the real type (below it a product loses precision). */
+#if defined(AIRDATA_SINGLE)
+#define AD_LIM_NORMAL_MIN ((ad_real)0x1p-126)
+#else
+#define AD_LIM_NORMAL_MIN ((ad_real)0x1p-1022)
+#endif
+
+/* LIM-1 on checked arguments; derived check eas <= AD_SPEED_HI.  Where 2 n W,
+ * rho0 S CL or their quotient is below the smallest normal number (tiny valid
+ * inputs), the same from square roots of the factors, which has no subnormal
+ * intermediate while the result is normal (airdata/limits.py). */
 static ad_status ad_stall_eas_i(ad_real w, ad_real s, ad_real cl, ad_real n, ad_real *eas)
 {
-    *eas = ad_sqrt(((AD_K_2 * n) * w) / ((AD_RHO0 * s) * cl));
+    const ad_real num = (AD_K_2 * n) * w;
+    const ad_real den = (AD_RHO0 * s) * cl;
+    const ad_real q = num / den;
+    if ((num < AD_LIM_NORMAL_MIN) || (den < AD_LIM_NORMAL_MIN) || (q < AD_LIM_NORMAL_MIN)) {
+        *eas = (ad_sqrt(AD_K_2 * n) / (ad_sqrt(AD_RHO0) * ad_sqrt(s)))
+               * (ad_sqrt(w) / ad_sqrt(cl));
+    } else {
+        *eas = ad_sqrt(q);
+    }
     return (*eas > AD_SPEED_HI) ? AD_OUT_OF_RANGE : AD_OK;
 }
 
