@@ -516,11 +516,12 @@ def _limit_cases(c: Consts) -> list[Case]:
     top = 1 - MARGIN
 
     def stall_ok(w: F64, s: F64, cl: F64, n: F64, ps: F64 | None = None) -> NDArray[np.bool_]:
-        eas = _stall_eas64(w, s, cl, n, c)
-        ok = eas <= 4000.0 * top
-        if ps is not None:
-            m = eas / (c.a0 * np.sqrt(ps / c.p0))
-            ok &= (m <= 10.0 * top) & (ps * _pitot_ratio(m) / c.p0 <= RATIO_M10 * top)
+        with np.errstate(all="ignore"):  # tiny wing areas: an infinite EAS, refused
+            eas = _stall_eas64(w, s, cl, n, c)
+            ok = eas <= 4000.0 * top
+            if ps is not None:
+                m = np.where(ok, eas / (c.a0 * np.sqrt(ps / c.p0)), 0.0)
+                ok &= (m <= 10.0 * top) & (ps * _pitot_ratio(m) / c.p0 <= RATIO_M10 * top)
         return ok
 
     def stall_sample(extra: dict[str, Column]) -> Sampler:
