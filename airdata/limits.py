@@ -403,8 +403,9 @@ def crossover_altitude(
     m = np.where(sonic, 0.5, args["mach_limit"])
     m0 = np.where(args["cas_limit"] / prof.a0 > dom.MACH_MAX, 0.0, args["cas_limit"] / prof.a0)
     tiny = (m0 < TINY_MACH) & (m < TINY_MACH)
-    ps = np.where(tiny, prof.p0 * (m0 / m) ** 2,
-                  qc / ratio_from_mach(np.where(tiny, 0.5, m)))
+    with np.errstate(divide="ignore", over="ignore"):  # ps = inf (tiny M): refused below
+        ps = np.where(tiny, prof.p0 * (m0 / m) ** 2,
+                      qc / ratio_from_mach(np.where(tiny, 0.5, m)))
     prange = dom.pressure(prof)
     out = (ps < prange.lo) | (ps > prange.hi)
     args.flag(out, Status.OUT_OF_RANGE, "crossover pressure", ps, prange.describe())
