@@ -51,6 +51,20 @@ class Domain:
         """The valid range in words, for error messages."""
         return f"[{self.lo!r}, {self.hi!r}] {self.unit}".rstrip()
 
+    def all_valid(self, x: NDArray[np.float64]) -> bool:
+        """True when every element lies in the range (and has the right sign).
+
+        Two comparisons and a reduction: the fast path of :class:`Inputs` for the
+        usual all-valid call.  NaN compares false, infinities fall outside.
+        """
+        with np.errstate(invalid="ignore"):
+            ok = (x >= self.lo) & (x <= self.hi)
+            if self.sign == "positive" and self.lo <= 0.0:
+                ok &= x > 0.0
+            elif self.sign == "nonnegative" and self.lo < 0.0:
+                ok &= x >= 0.0
+        return bool(ok.all())
+
     def classify(self, x: NDArray[np.float64]) -> NDArray[np.int8]:
         """Status of every element: OK, INVALID_INPUT or OUT_OF_RANGE."""
         with np.errstate(invalid="ignore"):
@@ -76,14 +90,15 @@ class Inputs:
         self.shape = arrays[0].shape
         self.status = np.zeros(self.shape, dtype=np.int8)
         self._values: dict[str, NDArray[np.float64]] = {}
+        self._any_bad = False
         for (name, (_, dom)), arr in zip(named.items(), arrays, strict=True):
-            st = dom.classify(arr)
-            bad = st != Status.OK
-            if bad.any():
+            if dom.all_valid(arr):
+                arr = np.ascontiguousarray(arr)  # kernels never write to their inputs
+            else:
+                st = dom.classify(arr)
+                bad = st != Status.OK
                 self._report(name, arr, st, dom.describe())
                 arr = np.where(bad, dom.safe, arr)
-            else:
-                arr = np.array(arr, dtype=np.float64)  # own, writable, contiguous copy
             self._values[name] = arr
 
     def __getitem__(self, name: str) -> NDArray[np.float64]:
@@ -99,6 +114,7 @@ class Inputs:
                               Status(int(st.flat[first])))
         # Keep the first bad status of each element.
         self.status = np.where(self.status == Status.OK, st, self.status).astype(np.int8)
+        self._any_bad = True
 
     def flag(self, mask: NDArray[np.bool_], status: Status, name: str,
              value: NDArray[np.float64], valid: str) -> None:
@@ -109,13 +125,19 @@ class Inputs:
             self._report(name, np.broadcast_to(value, self.shape), st, valid)
 
     @property
+    def any_bad(self) -> bool:
+        """Whether any element has a bad input or derived quantity (cheap)."""
+        return self._any_bad
+
+    @property
     def bad(self) -> NDArray[np.bool_]:
         """Elements with any bad input or derived quantity."""
         return self.status != Status.OK
 
     def finish(self, y: NDArray[np.float64]) -> FloatOrArray:
         """NaN where bad; a Python float for scalar input."""
-        y = np.where(self.bad, np.nan, y) if self.bad.any() else y
+        if self._any_bad:
+            y = np.where(self.bad, np.nan, y)
         if self.scalar:
             return float(y.reshape(-1)[0])
         return y

@@ -158,15 +158,16 @@ def air_data(
     qc = args["pt"] - p
     args.flag(qc < -noise_band, Status.INVALID_INPUT, "qc = pt - ps", qc,
               f">= -{noise_band!r} Pa (noise band)")
-    zeroed = (qc < 0.0) & ~args.bad
+    zeroed = (qc < 0.0) & ~args.bad if args.any_bad else qc < 0.0
     qc = np.maximum(qc, 0.0)
     x = qc / p
     args.flag(x > RATIO_LIMIT, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     x0 = qc / prof.p0
     args.flag(x0 > RATIO_LIMIT, Status.OUT_OF_RANGE, "qc/p0", x0,
               f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
-    x = np.where(args.bad, 0.0, x)
-    x0 = np.where(args.bad, 0.0, x0)
+    if args.any_bad:
+        x = np.where(args.bad, 0.0, x)
+        x0 = np.where(args.bad, 0.0, x0)
 
     mach = mach_from_ratio(x)
     cas = prof.a0 * mach_from_ratio(x0)
@@ -178,17 +179,21 @@ def air_data(
     rho_lo, rho_hi = density_range(prof)
     args.flag((rho < rho_lo) | (rho > rho_hi), Status.OUT_OF_RANGE, "density ps/(R sat)", rho,
               f"[{rho_lo!r}, {rho_hi!r}] kg/m3")
-    safe_rho = np.where(args.bad, prof.rho0, rho)
-    dens_alt = altitude_of_density(np.where(args.bad, prof.p0, p),
-                                   np.where(args.bad, prof.T0, sat), safe_rho, t)
+    if args.any_bad:
+        bad = args.bad
+        dens_alt = altitude_of_density(np.where(bad, prof.p0, p), np.where(bad, prof.T0, sat),
+                                       np.where(bad, prof.rho0, rho), t)
+    else:
+        dens_alt = altitude_of_density(p, sat, rho, t)
     h = altitude_of_pressure(p, t)
     baro = None
     if setting is not None:
         baro = args.finish(h - altitude_of_pressure(args["setting"], t))
 
-    status = np.where(args.bad, args.status,
-                      np.where(zeroed, np.int8(Status.IMPACT_PRESSURE_ZEROED),
-                               np.int8(Status.OK))).astype(np.int8)
+    status = np.where(zeroed, np.int8(Status.IMPACT_PRESSURE_ZEROED),
+                      np.int8(Status.OK)).astype(np.int8)
+    if args.any_bad:
+        status = np.where(args.bad, args.status, status).astype(np.int8)
     return AirData(
         pressure_altitude=args.finish(h),
         baro_altitude=baro,
