@@ -60,7 +60,7 @@ def test_adapter_really_maps_other_names() -> None:
 
 def test_example_passes_every_vector_in_binary64(suite: LoadedSuite) -> None:
     rows = _run(suite, ())
-    assert len(rows) == 22
+    assert len(rows) == 30
     bad = {r.function: [f.reasons for f in r.failures[:2]] for r in rows if not r.ok}
     assert not bad
 

@@ -320,3 +320,129 @@ ad_status ad_air_data(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
     out->dynamic_pressure = (ad_real)r.q;
     return st;
 }
+
+/* The team's wing record from the limit functions' first three arguments. */
+static fti_wing wing_of(ad_real weight, ad_real wing_area, ad_real cl_max)
+{
+    fti_wing w;
+    w.weight_n = (fti_num)weight;
+    w.area_m2 = (fti_num)wing_area;
+    w.cl_max = (fti_num)cl_max;
+    return w;
+}
+
+static fti_envelope envelope_of(ad_real cas_limit, ad_real mach_limit)
+{
+    fti_envelope e;
+    e.vmo = (fti_num)cas_limit;
+    e.mmo = (fti_num)mach_limit;
+    return e;
+}
+
+ad_status ad_stall_eas(ad_real weight, ad_real wing_area, ad_real cl_max,
+                       ad_real load_factor, ad_real *eas)
+{
+    fti_num v = 0.0;
+    fti_wing w;
+    fti_code c;
+    if (eas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    w = wing_of(weight, wing_area, cl_max);
+    c = fti_stall_ve(&w, (fti_num)load_factor, &v);
+    return finish(c, v, eas);
+}
+
+ad_status ad_stall_mach(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                        ad_real load_factor, ad_real *mach)
+{
+    fti_num v = 0.0;
+    fti_wing w;
+    fti_code c;
+    if (mach == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    w = wing_of(weight, wing_area, cl_max);
+    c = fti_stall_mach((fti_num)ps, &w, (fti_num)load_factor, &v);
+    return finish(c, v, mach);
+}
+
+ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                       ad_real load_factor, ad_real *cas)
+{
+    fti_num v = 0.0;
+    fti_wing w;
+    fti_code c;
+    if (cas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    w = wing_of(weight, wing_area, cl_max);
+    c = fti_stall_vc((fti_num)ps, &w, (fti_num)load_factor, &v);
+    return finish(c, v, cas);
+}
+
+ad_status ad_stall_tas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
+                       ad_real sat, ad_real load_factor, ad_real *tas)
+{
+    fti_num v = 0.0;
+    fti_wing w;
+    fti_code c;
+    if (tas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    w = wing_of(weight, wing_area, cl_max);
+    c = fti_stall_vt((fti_num)ps, (fti_num)sat, &w, (fti_num)load_factor, &v);
+    return finish(c, v, tas);
+}
+
+ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *h)
+{
+    fti_num v = 0.0;
+    fti_envelope e;
+    fti_code c;
+    if (h == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    e = envelope_of(cas_limit, mach_limit);
+    c = fti_crossover_hp(&e, &v);
+    return finish(c, v, h);
+}
+
+ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                               ad_real *cas)
+{
+    fti_num v = 0.0;
+    fti_envelope e;
+    fti_code c;
+    if (cas == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    e = envelope_of(cas_limit, mach_limit);
+    c = fti_vmo_mmo_vc((fti_num)ps, &e, &v);
+    return finish(c, v, cas);
+}
+
+ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                                ad_real *mach)
+{
+    fti_num v = 0.0;
+    fti_envelope e;
+    fti_code c;
+    if (mach == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    e = envelope_of(cas_limit, mach_limit);
+    c = fti_vmo_mmo_mach((fti_num)ps, &e, &v);
+    return finish(c, v, mach);
+}
+
+ad_status ad_ceiling_margin(ad_real ps, ad_real ceiling, ad_real *margin)
+{
+    fti_num v = 0.0;
+    fti_code c;
+    if (margin == NULL) {
+        return AD_INVALID_INPUT;
+    }
+    c = fti_ceiling_left((fti_num)ps, (fti_num)ceiling, &v);
+    return finish(c, v, margin);
+}

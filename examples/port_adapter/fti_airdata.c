@@ -42,6 +42,14 @@
 #define ad_sat_from_tat fti_ref_sat_from_tat
 #define ad_tat_from_sat fti_ref_tat_from_sat
 #define ad_air_data fti_ref_air_data
+#define ad_stall_eas fti_ref_stall_eas
+#define ad_stall_mach fti_ref_stall_mach
+#define ad_stall_cas fti_ref_stall_cas
+#define ad_stall_tas fti_ref_stall_tas
+#define ad_crossover_altitude fti_ref_crossover_altitude
+#define ad_max_operating_cas fti_ref_max_operating_cas
+#define ad_max_operating_mach fti_ref_max_operating_mach
+#define ad_ceiling_margin fti_ref_ceiling_margin
 
 #include "domains.c"
 #include "dd.c"
@@ -51,6 +59,7 @@
 #include "speeds.c"
 #include "temperature.c"
 #include "chain.c"
+#include "limits.c"
 
 #include "fti_airdata.h"
 
@@ -324,4 +333,64 @@ fti_code fti_air_solve(const fti_probe_sample *s, const fti_probe_config *cfg,
         out->q = d.dynamic_pressure;
     }
     return c;
+}
+
+fti_code fti_stall_ve(const fti_wing *w, fti_num n_load, fti_num *ve)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_stall_eas(w->weight_n, w->area_m2, w->cl_max, n_load, &v);
+    return fti_keep(st, v, ve);
+}
+
+fti_code fti_stall_mach(fti_num ps, const fti_wing *w, fti_num n_load, fti_num *mach)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_stall_mach(w->weight_n, w->area_m2, w->cl_max, ps, n_load,
+                                            &v);
+    return fti_keep(st, v, mach);
+}
+
+fti_code fti_stall_vc(fti_num ps, const fti_wing *w, fti_num n_load, fti_num *vc)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_stall_cas(w->weight_n, w->area_m2, w->cl_max, ps, n_load,
+                                           &v);
+    return fti_keep(st, v, vc);
+}
+
+fti_code fti_stall_vt(fti_num ps, fti_num t_static, const fti_wing *w, fti_num n_load,
+                      fti_num *vt)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_stall_tas(w->weight_n, w->area_m2, w->cl_max, ps, t_static,
+                                           n_load, &v);
+    return fti_keep(st, v, vt);
+}
+
+fti_code fti_crossover_hp(const fti_envelope *e, fti_num *hp)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_crossover_altitude(e->vmo, e->mmo, &v);
+    return fti_keep(st, v, hp);
+}
+
+fti_code fti_vmo_mmo_vc(fti_num ps, const fti_envelope *e, fti_num *vc)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_max_operating_cas(ps, e->vmo, e->mmo, &v);
+    return fti_keep(st, v, vc);
+}
+
+fti_code fti_vmo_mmo_mach(fti_num ps, const fti_envelope *e, fti_num *mach)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_max_operating_mach(ps, e->vmo, e->mmo, &v);
+    return fti_keep(st, v, mach);
+}
+
+fti_code fti_ceiling_left(fti_num ps, fti_num ceiling_hp, fti_num *margin)
+{
+    double v = 0.0;
+    const ad_status st = fti_ref_ceiling_margin(ps, ceiling_hp, &v);
+    return fti_keep(st, v, margin);
 }

@@ -81,6 +81,29 @@ fti_code fti_q_of_mach(fti_num ps, fti_num mach, fti_num *q);
 fti_code fti_t_static(fti_num t_total, fti_num mach, fti_num recovery, fti_num *ts);
 fti_code fti_t_total(fti_num t_static, fti_num mach, fti_num recovery, fti_num *tt);
 
+/* Flight-envelope limits (the team's names): the wing of one loading case, and the
+ * airframe's speed limits (VMO as CAS in m/s, MMO as a Mach number). */
+typedef struct {
+    fti_num weight_n;    /* N */
+    fti_num area_m2;     /* m2 */
+    fti_num cl_max;      /* maximum lift coefficient */
+} fti_wing;
+
+typedef struct {
+    fti_num vmo;         /* m/s, calibrated */
+    fti_num mmo;         /* Mach */
+} fti_envelope;
+
+fti_code fti_stall_ve(const fti_wing *w, fti_num n_load, fti_num *ve);
+fti_code fti_stall_mach(fti_num ps, const fti_wing *w, fti_num n_load, fti_num *mach);
+fti_code fti_stall_vc(fti_num ps, const fti_wing *w, fti_num n_load, fti_num *vc);
+fti_code fti_stall_vt(fti_num ps, fti_num t_static, const fti_wing *w, fti_num n_load,
+                      fti_num *vt);
+fti_code fti_crossover_hp(const fti_envelope *e, fti_num *hp);
+fti_code fti_vmo_mmo_vc(fti_num ps, const fti_envelope *e, fti_num *vc);
+fti_code fti_vmo_mmo_mach(fti_num ps, const fti_envelope *e, fti_num *mach);
+fti_code fti_ceiling_left(fti_num ps, fti_num ceiling_hp, fti_num *margin);
+
 fti_code fti_air_solve(const fti_probe_sample *s, const fti_probe_config *cfg,
                        fti_air_state *out);
 
