@@ -126,4 +126,15 @@ through bindings/c/include/airdata.h, with no heap, no file system and no JSON p
 
 It prints one line per function (cases, passed, failed, skipped, lenient, worst error
 as a fraction of the bound and its case id) and exits non-zero on any failure.
+
+The runner also checks the rest of the port's C interface with the same cases: every
+case goes through the batch entry point of bindings/c/include/airdata_batch.h as well
+(1-element arrays; status, error count and every output bit-identical to the scalar
+call, or the case fails); once per function whose cases passed, the NULL rule (a NULL
+output pointer returns INVALID_INPUT, a NULL array of a batch entry point returns
+`AD_BATCH_NULL`, and nothing is written; reported as `FAIL <name> contract`); and once,
+`ad_check_n` (NaN and infinity invalid in every domain, an unknown domain id makes every
+value invalid).  A port that implements only airdata.h adds `-DRUNNER_SCALAR_ONLY`.
+With both precisions, these checks alone reach every line of the bundled port under
+gcov (tests/test_coverage.py).
 """

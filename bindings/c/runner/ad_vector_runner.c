@@ -4,7 +4,8 @@
  * An engineering and verification aid, not certified flight software.
  *
  * C99, no heap, no file system, no JSON: the cases come from the generated headers
- * in vectors/c/ (`airdata vectors build`), the port from bindings/c/include/airdata.h.
+ * in vectors/c/ (`airdata vectors build`), the port from bindings/c/include/airdata.h
+ * and bindings/c/include/airdata_batch.h.
  * Build (binary64, then binary32):
  *
  *   cc -std=c99 -Wall -Wextra -Wpedantic -Werror -Ibindings/c/include -Ivectors/c \
@@ -19,10 +20,34 @@
  * NaN is expected exactly where the expected value is NaN, and the returned status
  * must equal the expected one.  Under AIRDATA_SINGLE each case's binary32_check
  * applies: AD_VEC_B32_LENIENT skips the status and accepts NaN on either side (two
- * numbers must still agree within the bound); AD_VEC_B32_SKIP skips the case.  One summary line per function; the exit status is non-zero on any failure.
+ * numbers must still agree within the bound); AD_VEC_B32_SKIP skips the case.
+ *
+ * The interface the vectors test includes the batch entry points and the NULL rule:
+ *   - every case is also run through the batch entry point of airdata_batch.h
+ *     (ad_<name>_n with the same inputs as 1-element arrays; ad_air_data_n gets a
+ *     NULL setting array when use_setting is 0): its status byte must equal the
+ *     scalar call's status, its return value the error count (0 or 1), and every
+ *     output must be bit-identical to the scalar call's, in every precision and for
+ *     every case, skipped or lenient ones included.  A difference fails the case;
+ *   - once per function, the NULL rule: the scalar function with a NULL output
+ *     pointer returns AD_INVALID_INPUT (airdata.h), and the batch entry point returns
+ *     AD_BATCH_NULL for each NULL array pointer in turn (airdata_batch.h); in neither
+ *     case is anything written.  A violation is reported as "FAIL <name> contract".
+ *     The rule is checked only for a function whose cases all passed: a function
+ *     that already failed is not handed NULL pointers (it might write through them
+ *     and end the run before the other functions are reported);
+ *   - once, ad_check_n: NaN and +inf are AD_INVALID_INPUT in every domain, so is any
+ *     value for a domain id outside ad_domain_id, and NULL arrays give AD_BATCH_NULL.
+ * A port that implements only airdata.h builds the runner with -DRUNNER_SCALAR_ONLY:
+ * then the batch checks are left out (the scalar NULL rule is still checked).
+ *
+ * One summary line per function (its cases and failed cases); contract failures are
+ * printed below it.  The exit status is non-zero on any failure.
  */
 #include <math.h>
+#include <stddef.h>
 #include <stdio.h>
+#include <string.h>
 
 #include "airdata.h"
 #include "ad_vectors.h"
@@ -32,6 +57,15 @@
 #endif
 #if !defined(AIRDATA_PROFILE_US1976) && !defined(AD_VEC_PROFILE_ICAO)
 #error "the port is built for profile icao but the vectors are not"
+#endif
+
+#ifdef RUNNER_SCALAR_ONLY
+#define RUNNER_BATCH 0
+#define RUNNER_BATCH_NOTE ", scalar entry points only"
+#else
+#include "airdata_batch.h"
+#define RUNNER_BATCH 1
+#define RUNNER_BATCH_NOTE ", scalar and batch entry points"
 #endif
 
 #ifdef AIRDATA_SINGLE
@@ -55,6 +89,7 @@ typedef struct {
     long failed;
     long status_skipped;
     long skipped;
+    long contract_failed;  /* NULL-rule checks failed (not cases) */
     double worst;          /* largest |got - expected| / bound over compared outputs */
     const char *worst_id;
 } tally_t;
@@ -66,6 +101,7 @@ static void tally_start(tally_t *t, const char *name)
     t->failed = 0;
     t->status_skipped = 0;
     t->skipped = 0;
+    t->contract_failed = 0;
     t->worst = 0.0;
     t->worst_id = "-";
 }
@@ -75,7 +111,7 @@ static long tally_finish(const tally_t *t)
     printf("%-26s %5ld cases %5ld passed %4ld failed %4ld skipped %4ld lenient  worst %.3g of"
            " bound (case %s)\n", t->name, t->cases, t->cases - t->failed - t->skipped,
            t->failed, t->skipped, t->status_skipped, t->worst, t->worst_id);
-    return t->failed;
+    return t->failed + t->contract_failed;
 }
 
 static void report(const tally_t *t, const char *id, const char *what)
@@ -94,15 +130,57 @@ static void report_value(const tally_t *t, const char *id, int k, double got, do
     }
 }
 
-/* Compare one case; counts it and at most one failure. */
+/* Set n bytes at p to v (sentinels for outputs that must be overwritten). */
+static void fill(void *p, size_t n, unsigned int v)
+{
+    (void)memset(p, (int)v, n);
+}
+
+/* 1 when st is an error status (neither AD_OK nor AD_IMPACT_PRESSURE_ZEROED). */
+static size_t is_error(ad_status st)
+{
+    return ((st == AD_OK) || (st == AD_IMPACT_PRESSURE_ZEROED)) ? 0U : 1U;
+}
+
+/* 1 when the batch call agreed with the scalar call: same status, error count 0 or 1
+ * as the status says, every output bit-identical. */
+static int batch_same(ad_status st, unsigned char st_n, size_t bad, const ad_real *out,
+                      const ad_real *out_n, int nout)
+{
+    int same = ((int)st_n == (int)st) && (bad == is_error(st));
+    int k;
+    for (k = 0; k < nout && k < 11; ++k) {
+        if (memcmp(&out[k], &out_n[k], sizeof out[k]) != 0) {
+            same = 0;
+        }
+    }
+    return same;
+}
+
+/* Count failed NULL-rule checks of the current function. */
+static void contract(tally_t *t, int bad, const char *what)
+{
+    if (bad != 0) {
+        t->contract_failed += bad;
+        printf("  FAIL %s contract: %s (%d check(s) failed)\n", t->name, what, bad);
+    }
+}
+
+/* Compare one case; counts it and at most one failure.  batch_ok: the batch entry
+ * point agreed with the scalar call (checked whatever the precision rules say). */
 static void check_case(tally_t *t, const char *id, ad_status got_status, int want_status,
                        int check32, const ad_real *got, const double *want,
-                       const double *scale, int nout)
+                       const double *scale, int nout, int batch_ok)
 {
     int ok = 1;
     int check_status = !(RUNNER_SINGLE && check32 != AD_VEC_B32_FULL);
     int k;
     t->cases += 1;
+    if (!batch_ok) {
+        report(t, id, "the batch entry point differs from the scalar call");
+        t->failed += 1;
+        return;
+    }
     if (RUNNER_SINGLE && check32 == AD_VEC_B32_SKIP) {
         t->skipped += 1;
         return;
@@ -154,562 +232,1797 @@ static void check_case(tally_t *t, const char *id, ad_status got_status, int wan
     }
 }
 
+
+#if RUNNER_BATCH
+/* ad_check_n (airdata_batch.h): NaN and +inf are invalid in every domain; a domain id
+ * outside ad_domain_id makes every value invalid; a NULL array gives AD_BATCH_NULL and
+ * writes nothing.  Returns the number of failed checks. */
+static long check_domains(void)
+{
+    const ad_real x[2] = { (ad_real)NAN, (ad_real)INFINITY };
+    const ad_real one[1] = { (ad_real)1 };
+    unsigned char st[2];
+    long bad = 0;
+    int d;
+    for (d = 0; d <= (int)AD_DOM_SUBSONIC_MACH_LIMIT; ++d) {
+        st[0] = 0xffU;
+        st[1] = 0xffU;
+        bad += (ad_check_n((ad_domain_id)d, x, st, 2U) != 2U);
+        bad += (st[0] != (unsigned char)AD_INVALID_INPUT)
+               || (st[1] != (unsigned char)AD_INVALID_INPUT);
+    }
+    st[0] = 0xffU;
+    bad += (ad_check_n((ad_domain_id)((int)AD_DOM_SUBSONIC_MACH_LIMIT + 1), one, st, 1U) != 1U);
+    bad += (st[0] != (unsigned char)AD_INVALID_INPUT);
+    st[0] = 0xa5U;
+    bad += (ad_check_n(AD_DOM_MACH, NULL, st, 1U) != AD_BATCH_NULL);
+    bad += (ad_check_n(AD_DOM_MACH, one, NULL, 1U) != AD_BATCH_NULL);
+    bad += (st[0] != 0xa5U);
+    if (bad != 0) {
+        printf("  FAIL ad_check_n contract: %ld check(s) failed\n", bad);
+    }
+    return bad;
+}
+#endif
+
 static void run_atmosphere(tally_t *t)
 {
-    ad_atmosphere_t a;
+    ad_atmosphere_t y;
+    ad_atmosphere_t y_n[1];
     ad_real out[6];
+    ad_real out_n[6];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_ATMOSPHERE_COUNT; ++i) {
         const ad_vec_atmosphere_case *c = &ad_vec_atmosphere_cases[i];
-        a.temperature = 0;
-        a.pressure = 0;
-        a.density = 0;
-        a.speed_of_sound = 0;
-        a.dynamic_viscosity = 0;
-        a.kinematic_viscosity = 0;
-        st = ad_atmosphere((ad_real)c->in[0], (ad_real)c->in[1], &a);
-        out[0] = a.temperature;
-        out[1] = a.pressure;
-        out[2] = a.density;
-        out[3] = a.speed_of_sound;
-        out[4] = a.dynamic_viscosity;
-        out[5] = a.kinematic_viscosity;
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        fill(&y, sizeof y, 0x00U);
+        fill(y_n, sizeof y_n, 0x5aU);
+        st = ad_atmosphere(x0, x1, &y);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_atmosphere_n(&x0, &x1, y_n, st_n, 1U);
+#else
+        y_n[0] = y;
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
+        out[0] = y.temperature;
+        out[1] = y.pressure;
+        out[2] = y.density;
+        out[3] = y.speed_of_sound;
+        out[4] = y.dynamic_viscosity;
+        out[5] = y.kinematic_viscosity;
+        out_n[0] = y_n[0].temperature;
+        out_n[1] = y_n[0].pressure;
+        out_n[2] = y_n[0].density;
+        out_n[3] = y_n[0].speed_of_sound;
+        out_n[4] = y_n[0].dynamic_viscosity;
+        out_n[5] = y_n[0].kinematic_viscosity;
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_ATMOSPHERE_NOUT);
+                   c->scale, AD_VEC_ATMOSPHERE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_ATMOSPHERE_NOUT));
     }
+}
+
+static void null_atmosphere(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_atmosphere(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_atmosphere_t y;
+        ad_atmosphere_t y0;
+        unsigned char s = 0xa5U;
+        fill(&y, sizeof y, 0x5aU);
+        y0 = y;
+        bad += (ad_atmosphere_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_atmosphere_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_atmosphere_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_atmosphere_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_geopotential_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_GEOPOTENTIAL_ALTITUDE_COUNT; ++i) {
         const ad_vec_geopotential_altitude_case *c = &ad_vec_geopotential_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
         out[0] = 0;
-        st = ad_geopotential_altitude((ad_real)c->in[0], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_geopotential_altitude(x0, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_geopotential_altitude_n(&x0, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_GEOPOTENTIAL_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_GEOPOTENTIAL_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_GEOPOTENTIAL_ALTITUDE_NOUT));
     }
+}
+
+static void null_geopotential_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_geopotential_altitude(a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_geopotential_altitude_n(NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_geopotential_altitude_n(&a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_geopotential_altitude_n(&a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_geometric_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_GEOMETRIC_ALTITUDE_COUNT; ++i) {
         const ad_vec_geometric_altitude_case *c = &ad_vec_geometric_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
         out[0] = 0;
-        st = ad_geometric_altitude((ad_real)c->in[0], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_geometric_altitude(x0, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_geometric_altitude_n(&x0, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_GEOMETRIC_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_GEOMETRIC_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_GEOMETRIC_ALTITUDE_NOUT));
     }
+}
+
+static void null_geometric_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_geometric_altitude(a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_geometric_altitude_n(NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_geometric_altitude_n(&a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_geometric_altitude_n(&a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_pressure_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_PRESSURE_ALTITUDE_COUNT; ++i) {
         const ad_vec_pressure_altitude_case *c = &ad_vec_pressure_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
         out[0] = 0;
-        st = ad_pressure_altitude((ad_real)c->in[0], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_pressure_altitude(x0, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_pressure_altitude_n(&x0, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_PRESSURE_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_PRESSURE_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_PRESSURE_ALTITUDE_NOUT));
     }
+}
+
+static void null_pressure_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_pressure_altitude(a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_pressure_altitude_n(NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_pressure_altitude_n(&a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_pressure_altitude_n(&a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_pressure_at_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_PRESSURE_AT_ALTITUDE_COUNT; ++i) {
         const ad_vec_pressure_at_altitude_case *c = &ad_vec_pressure_at_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
         out[0] = 0;
-        st = ad_pressure_at_altitude((ad_real)c->in[0], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_pressure_at_altitude(x0, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_pressure_at_altitude_n(&x0, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_PRESSURE_AT_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_PRESSURE_AT_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_PRESSURE_AT_ALTITUDE_NOUT));
     }
+}
+
+static void null_pressure_at_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_pressure_at_altitude(a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_pressure_at_altitude_n(NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_pressure_at_altitude_n(&a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_pressure_at_altitude_n(&a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_baro_corrected_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_BARO_CORRECTED_ALTITUDE_COUNT; ++i) {
         const ad_vec_baro_corrected_altitude_case *c = &ad_vec_baro_corrected_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_baro_corrected_altitude((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_baro_corrected_altitude(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_baro_corrected_altitude_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_BARO_CORRECTED_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_BARO_CORRECTED_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_BARO_CORRECTED_ALTITUDE_NOUT));
     }
+}
+
+static void null_baro_corrected_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_baro_corrected_altitude(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_baro_corrected_altitude_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_baro_corrected_altitude_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_baro_corrected_altitude_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_baro_corrected_altitude_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_altimeter_setting(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_ALTIMETER_SETTING_COUNT; ++i) {
         const ad_vec_altimeter_setting_case *c = &ad_vec_altimeter_setting_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_altimeter_setting((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_altimeter_setting(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_altimeter_setting_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_ALTIMETER_SETTING_NOUT);
+                   c->scale, AD_VEC_ALTIMETER_SETTING_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_ALTIMETER_SETTING_NOUT));
     }
+}
+
+static void null_altimeter_setting(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_altimeter_setting(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_altimeter_setting_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_altimeter_setting_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_altimeter_setting_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_altimeter_setting_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_density_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_DENSITY_ALTITUDE_COUNT; ++i) {
         const ad_vec_density_altitude_case *c = &ad_vec_density_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_density_altitude((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_density_altitude(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_density_altitude_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_DENSITY_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_DENSITY_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_DENSITY_ALTITUDE_NOUT));
     }
+}
+
+static void null_density_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_density_altitude(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_density_altitude_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_density_altitude_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_density_altitude_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_density_altitude_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_impact_pressure_from_mach(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_IMPACT_PRESSURE_FROM_MACH_COUNT; ++i) {
         const ad_vec_impact_pressure_from_mach_case *c = &ad_vec_impact_pressure_from_mach_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_impact_pressure_from_mach((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_impact_pressure_from_mach(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_impact_pressure_from_mach_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_IMPACT_PRESSURE_FROM_MACH_NOUT);
+                   c->scale, AD_VEC_IMPACT_PRESSURE_FROM_MACH_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_IMPACT_PRESSURE_FROM_MACH_NOUT));
     }
+}
+
+static void null_impact_pressure_from_mach(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_impact_pressure_from_mach(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_impact_pressure_from_mach_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_impact_pressure_from_mach_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_impact_pressure_from_mach_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_impact_pressure_from_mach_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_mach_from_impact_pressure(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_MACH_FROM_IMPACT_PRESSURE_COUNT; ++i) {
         const ad_vec_mach_from_impact_pressure_case *c = &ad_vec_mach_from_impact_pressure_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_mach_from_impact_pressure((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_mach_from_impact_pressure(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_mach_from_impact_pressure_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_MACH_FROM_IMPACT_PRESSURE_NOUT);
+                   c->scale, AD_VEC_MACH_FROM_IMPACT_PRESSURE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_MACH_FROM_IMPACT_PRESSURE_NOUT));
     }
+}
+
+static void null_mach_from_impact_pressure(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_mach_from_impact_pressure(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_mach_from_impact_pressure_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_impact_pressure_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_impact_pressure_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_impact_pressure_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_impact_pressure_from_cas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_IMPACT_PRESSURE_FROM_CAS_COUNT; ++i) {
         const ad_vec_impact_pressure_from_cas_case *c = &ad_vec_impact_pressure_from_cas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
         out[0] = 0;
-        st = ad_impact_pressure_from_cas((ad_real)c->in[0], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_impact_pressure_from_cas(x0, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_impact_pressure_from_cas_n(&x0, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_IMPACT_PRESSURE_FROM_CAS_NOUT);
+                   c->scale, AD_VEC_IMPACT_PRESSURE_FROM_CAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_IMPACT_PRESSURE_FROM_CAS_NOUT));
     }
+}
+
+static void null_impact_pressure_from_cas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_impact_pressure_from_cas(a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_impact_pressure_from_cas_n(NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_impact_pressure_from_cas_n(&a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_impact_pressure_from_cas_n(&a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_cas_from_impact_pressure(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_CAS_FROM_IMPACT_PRESSURE_COUNT; ++i) {
         const ad_vec_cas_from_impact_pressure_case *c = &ad_vec_cas_from_impact_pressure_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
         out[0] = 0;
-        st = ad_cas_from_impact_pressure((ad_real)c->in[0], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_cas_from_impact_pressure(x0, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_cas_from_impact_pressure_n(&x0, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_CAS_FROM_IMPACT_PRESSURE_NOUT);
+                   c->scale, AD_VEC_CAS_FROM_IMPACT_PRESSURE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_CAS_FROM_IMPACT_PRESSURE_NOUT));
     }
+}
+
+static void null_cas_from_impact_pressure(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_cas_from_impact_pressure(a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_cas_from_impact_pressure_n(NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_cas_from_impact_pressure_n(&a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_cas_from_impact_pressure_n(&a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_cas_from_mach(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_CAS_FROM_MACH_COUNT; ++i) {
         const ad_vec_cas_from_mach_case *c = &ad_vec_cas_from_mach_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_cas_from_mach((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_cas_from_mach(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_cas_from_mach_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_CAS_FROM_MACH_NOUT);
+                   c->scale, AD_VEC_CAS_FROM_MACH_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_CAS_FROM_MACH_NOUT));
     }
+}
+
+static void null_cas_from_mach(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_cas_from_mach(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_cas_from_mach_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_cas_from_mach_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_cas_from_mach_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_cas_from_mach_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_mach_from_cas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_MACH_FROM_CAS_COUNT; ++i) {
         const ad_vec_mach_from_cas_case *c = &ad_vec_mach_from_cas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_mach_from_cas((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_mach_from_cas(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_mach_from_cas_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_MACH_FROM_CAS_NOUT);
+                   c->scale, AD_VEC_MACH_FROM_CAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_MACH_FROM_CAS_NOUT));
     }
+}
+
+static void null_mach_from_cas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_mach_from_cas(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_mach_from_cas_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_cas_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_cas_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_cas_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_eas_from_mach(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_EAS_FROM_MACH_COUNT; ++i) {
         const ad_vec_eas_from_mach_case *c = &ad_vec_eas_from_mach_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_eas_from_mach((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_eas_from_mach(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_eas_from_mach_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_EAS_FROM_MACH_NOUT);
+                   c->scale, AD_VEC_EAS_FROM_MACH_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_EAS_FROM_MACH_NOUT));
     }
+}
+
+static void null_eas_from_mach(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_eas_from_mach(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_eas_from_mach_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_eas_from_mach_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_eas_from_mach_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_eas_from_mach_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_mach_from_eas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_MACH_FROM_EAS_COUNT; ++i) {
         const ad_vec_mach_from_eas_case *c = &ad_vec_mach_from_eas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_mach_from_eas((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_mach_from_eas(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_mach_from_eas_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_MACH_FROM_EAS_NOUT);
+                   c->scale, AD_VEC_MACH_FROM_EAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_MACH_FROM_EAS_NOUT));
     }
+}
+
+static void null_mach_from_eas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_mach_from_eas(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_mach_from_eas_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_eas_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_eas_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_eas_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_tas_from_mach(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_TAS_FROM_MACH_COUNT; ++i) {
         const ad_vec_tas_from_mach_case *c = &ad_vec_tas_from_mach_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_tas_from_mach((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_tas_from_mach(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_tas_from_mach_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_TAS_FROM_MACH_NOUT);
+                   c->scale, AD_VEC_TAS_FROM_MACH_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_TAS_FROM_MACH_NOUT));
     }
+}
+
+static void null_tas_from_mach(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_tas_from_mach(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_tas_from_mach_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tas_from_mach_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tas_from_mach_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tas_from_mach_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_mach_from_tas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_MACH_FROM_TAS_COUNT; ++i) {
         const ad_vec_mach_from_tas_case *c = &ad_vec_mach_from_tas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_mach_from_tas((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_mach_from_tas(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_mach_from_tas_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_MACH_FROM_TAS_NOUT);
+                   c->scale, AD_VEC_MACH_FROM_TAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_MACH_FROM_TAS_NOUT));
     }
+}
+
+static void null_mach_from_tas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_mach_from_tas(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_mach_from_tas_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_tas_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_tas_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_mach_from_tas_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_dynamic_pressure(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_DYNAMIC_PRESSURE_COUNT; ++i) {
         const ad_vec_dynamic_pressure_case *c = &ad_vec_dynamic_pressure_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_dynamic_pressure((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_dynamic_pressure(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_dynamic_pressure_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_DYNAMIC_PRESSURE_NOUT);
+                   c->scale, AD_VEC_DYNAMIC_PRESSURE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_DYNAMIC_PRESSURE_NOUT));
     }
+}
+
+static void null_dynamic_pressure(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_dynamic_pressure(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_dynamic_pressure_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_dynamic_pressure_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_dynamic_pressure_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_dynamic_pressure_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_sat_from_tat(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_SAT_FROM_TAT_COUNT; ++i) {
         const ad_vec_sat_from_tat_case *c = &ad_vec_sat_from_tat_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
         out[0] = 0;
-        st = ad_sat_from_tat((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_sat_from_tat(x0, x1, x2, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_sat_from_tat_n(&x0, &x1, &x2, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_SAT_FROM_TAT_NOUT);
+                   c->scale, AD_VEC_SAT_FROM_TAT_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_SAT_FROM_TAT_NOUT));
     }
+}
+
+static void null_sat_from_tat(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_sat_from_tat(a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_sat_from_tat_n(NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_sat_from_tat_n(&a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_sat_from_tat_n(&a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_sat_from_tat_n(&a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_sat_from_tat_n(&a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_tat_from_sat(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_TAT_FROM_SAT_COUNT; ++i) {
         const ad_vec_tat_from_sat_case *c = &ad_vec_tat_from_sat_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
         out[0] = 0;
-        st = ad_tat_from_sat((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_tat_from_sat(x0, x1, x2, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_tat_from_sat_n(&x0, &x1, &x2, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_TAT_FROM_SAT_NOUT);
+                   c->scale, AD_VEC_TAT_FROM_SAT_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_TAT_FROM_SAT_NOUT));
     }
+}
+
+static void null_tat_from_sat(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_tat_from_sat(a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_tat_from_sat_n(NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tat_from_sat_n(&a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tat_from_sat_n(&a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tat_from_sat_n(&a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_tat_from_sat_n(&a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_air_data(tally_t *t)
 {
-    ad_air_data_t d;
+    ad_air_data_t y;
+    ad_air_data_t y_n[1];
     ad_real out[11];
+    ad_real out_n[11];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_AIR_DATA_COUNT; ++i) {
         const ad_vec_air_data_case *c = &ad_vec_air_data_cases[i];
-        d.pressure_altitude = 0;
-        d.baro_altitude = 0;
-        d.impact_pressure = 0;
-        d.mach = 0;
-        d.cas = 0;
-        d.eas = 0;
-        d.tas = 0;
-        d.sat = 0;
-        d.density = 0;
-        d.density_altitude = 0;
-        d.dynamic_pressure = 0;
-        st = ad_air_data((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2],
-                         (ad_real)c->in[3], (ad_real)c->in[4], (int)c->in[5],
-                         (ad_real)c->in[6], &d);
-        out[0] = d.pressure_altitude;
-        out[1] = d.baro_altitude;
-        out[2] = d.impact_pressure;
-        out[3] = d.mach;
-        out[4] = d.cas;
-        out[5] = d.eas;
-        out[6] = d.tas;
-        out[7] = d.sat;
-        out[8] = d.density;
-        out[9] = d.density_altitude;
-        out[10] = d.dynamic_pressure;
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
+        const ad_real x3 = (ad_real)c->in[3];
+        const ad_real x4 = (ad_real)c->in[4];
+        const int x5 = (int)c->in[5];
+        const ad_real x6 = (ad_real)c->in[6];
+        fill(&y, sizeof y, 0x00U);
+        fill(y_n, sizeof y_n, 0x5aU);
+        st = ad_air_data(x0, x1, x2, x3, x4, x5, x6, &y);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_air_data_n(&x0, &x1, &x2, &x3, (x5 != 0) ? &x4 : NULL, x5, x6, y_n, st_n, 1U);
+#else
+        y_n[0] = y;
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
+        out[0] = y.pressure_altitude;
+        out[1] = y.baro_altitude;
+        out[2] = y.impact_pressure;
+        out[3] = y.mach;
+        out[4] = y.cas;
+        out[5] = y.eas;
+        out[6] = y.tas;
+        out[7] = y.sat;
+        out[8] = y.density;
+        out[9] = y.density_altitude;
+        out[10] = y.dynamic_pressure;
+        out_n[0] = y_n[0].pressure_altitude;
+        out_n[1] = y_n[0].baro_altitude;
+        out_n[2] = y_n[0].impact_pressure;
+        out_n[3] = y_n[0].mach;
+        out_n[4] = y_n[0].cas;
+        out_n[5] = y_n[0].eas;
+        out_n[6] = y_n[0].tas;
+        out_n[7] = y_n[0].sat;
+        out_n[8] = y_n[0].density;
+        out_n[9] = y_n[0].density_altitude;
+        out_n[10] = y_n[0].dynamic_pressure;
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_AIR_DATA_NOUT);
+                   c->scale, AD_VEC_AIR_DATA_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_AIR_DATA_NOUT));
     }
+}
+
+static void null_air_data(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_air_data(a, a, a, a, a, 1, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_air_data_t y;
+        ad_air_data_t y0;
+        unsigned char s = 0xa5U;
+        fill(&y, sizeof y, 0x5aU);
+        y0 = y;
+        bad += (ad_air_data_n(NULL, &a, &a, &a, &a, 1, a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_air_data_n(&a, NULL, &a, &a, &a, 1, a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_air_data_n(&a, &a, NULL, &a, &a, 1, a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_air_data_n(&a, &a, &a, NULL, &a, 1, a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_air_data_n(&a, &a, &a, &a, NULL, 1, a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_air_data_n(&a, &a, &a, &a, &a, 1, a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_air_data_n(&a, &a, &a, &a, &a, 1, a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_stall_eas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_STALL_EAS_COUNT; ++i) {
         const ad_vec_stall_eas_case *c = &ad_vec_stall_eas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
+        const ad_real x3 = (ad_real)c->in[3];
         out[0] = 0;
-        st = ad_stall_eas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3],
-                       &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_stall_eas(x0, x1, x2, x3, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_stall_eas_n(&x0, &x1, &x2, &x3, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_STALL_EAS_NOUT);
+                   c->scale, AD_VEC_STALL_EAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_STALL_EAS_NOUT));
     }
+}
+
+static void null_stall_eas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_stall_eas(a, a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_stall_eas_n(NULL, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_eas_n(&a, NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_eas_n(&a, &a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_eas_n(&a, &a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_eas_n(&a, &a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_eas_n(&a, &a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_stall_mach(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_STALL_MACH_COUNT; ++i) {
         const ad_vec_stall_mach_case *c = &ad_vec_stall_mach_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
+        const ad_real x3 = (ad_real)c->in[3];
+        const ad_real x4 = (ad_real)c->in[4];
         out[0] = 0;
-        st = ad_stall_mach((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3], (ad_real)c->in[4],
-                       &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_stall_mach(x0, x1, x2, x3, x4, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_stall_mach_n(&x0, &x1, &x2, &x3, &x4, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_STALL_MACH_NOUT);
+                   c->scale, AD_VEC_STALL_MACH_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_STALL_MACH_NOUT));
     }
+}
+
+static void null_stall_mach(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_stall_mach(a, a, a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_stall_mach_n(NULL, &a, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_mach_n(&a, NULL, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_mach_n(&a, &a, NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_mach_n(&a, &a, &a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_mach_n(&a, &a, &a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_mach_n(&a, &a, &a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_mach_n(&a, &a, &a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_stall_cas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_STALL_CAS_COUNT; ++i) {
         const ad_vec_stall_cas_case *c = &ad_vec_stall_cas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
+        const ad_real x3 = (ad_real)c->in[3];
+        const ad_real x4 = (ad_real)c->in[4];
         out[0] = 0;
-        st = ad_stall_cas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3], (ad_real)c->in[4],
-                       &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_stall_cas(x0, x1, x2, x3, x4, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_stall_cas_n(&x0, &x1, &x2, &x3, &x4, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_STALL_CAS_NOUT);
+                   c->scale, AD_VEC_STALL_CAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_STALL_CAS_NOUT));
     }
+}
+
+static void null_stall_cas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_stall_cas(a, a, a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_stall_cas_n(NULL, &a, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_cas_n(&a, NULL, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_cas_n(&a, &a, NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_cas_n(&a, &a, &a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_cas_n(&a, &a, &a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_cas_n(&a, &a, &a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_cas_n(&a, &a, &a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_stall_tas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_STALL_TAS_COUNT; ++i) {
         const ad_vec_stall_tas_case *c = &ad_vec_stall_tas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
+        const ad_real x3 = (ad_real)c->in[3];
+        const ad_real x4 = (ad_real)c->in[4];
+        const ad_real x5 = (ad_real)c->in[5];
         out[0] = 0;
-        st = ad_stall_tas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], (ad_real)c->in[3], (ad_real)c->in[4], (ad_real)c->in[5],
-                       &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_stall_tas(x0, x1, x2, x3, x4, x5, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_stall_tas_n(&x0, &x1, &x2, &x3, &x4, &x5, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_STALL_TAS_NOUT);
+                   c->scale, AD_VEC_STALL_TAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_STALL_TAS_NOUT));
     }
+}
+
+static void null_stall_tas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_stall_tas(a, a, a, a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_stall_tas_n(NULL, &a, &a, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, NULL, &a, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, &a, NULL, &a, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, &a, &a, NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, &a, &a, &a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, &a, &a, &a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, &a, &a, &a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_stall_tas_n(&a, &a, &a, &a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_crossover_altitude(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_CROSSOVER_ALTITUDE_COUNT; ++i) {
         const ad_vec_crossover_altitude_case *c = &ad_vec_crossover_altitude_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_crossover_altitude((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_crossover_altitude(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_crossover_altitude_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_CROSSOVER_ALTITUDE_NOUT);
+                   c->scale, AD_VEC_CROSSOVER_ALTITUDE_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_CROSSOVER_ALTITUDE_NOUT));
     }
+}
+
+static void null_crossover_altitude(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_crossover_altitude(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_crossover_altitude_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_crossover_altitude_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_crossover_altitude_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_crossover_altitude_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_max_operating_cas(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_MAX_OPERATING_CAS_COUNT; ++i) {
         const ad_vec_max_operating_cas_case *c = &ad_vec_max_operating_cas_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
         out[0] = 0;
-        st = ad_max_operating_cas((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_max_operating_cas(x0, x1, x2, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_max_operating_cas_n(&x0, &x1, &x2, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_MAX_OPERATING_CAS_NOUT);
+                   c->scale, AD_VEC_MAX_OPERATING_CAS_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_MAX_OPERATING_CAS_NOUT));
     }
+}
+
+static void null_max_operating_cas(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_max_operating_cas(a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_max_operating_cas_n(NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_cas_n(&a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_cas_n(&a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_cas_n(&a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_cas_n(&a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_max_operating_mach(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_MAX_OPERATING_MACH_COUNT; ++i) {
         const ad_vec_max_operating_mach_case *c = &ad_vec_max_operating_mach_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
+        const ad_real x2 = (ad_real)c->in[2];
         out[0] = 0;
-        st = ad_max_operating_mach((ad_real)c->in[0], (ad_real)c->in[1], (ad_real)c->in[2], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_max_operating_mach(x0, x1, x2, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_max_operating_mach_n(&x0, &x1, &x2, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_MAX_OPERATING_MACH_NOUT);
+                   c->scale, AD_VEC_MAX_OPERATING_MACH_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_MAX_OPERATING_MACH_NOUT));
     }
+}
+
+static void null_max_operating_mach(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_max_operating_mach(a, a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_max_operating_mach_n(NULL, &a, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_mach_n(&a, NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_mach_n(&a, &a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_mach_n(&a, &a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_max_operating_mach_n(&a, &a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 static void run_ceiling_margin(tally_t *t)
 {
     ad_real out[1];
+    ad_real out_n[1];
+    unsigned char st_n[1];
+    size_t bad;
     ad_status st;
     int i;
     for (i = 0; i < AD_VEC_CEILING_MARGIN_COUNT; ++i) {
         const ad_vec_ceiling_margin_case *c = &ad_vec_ceiling_margin_cases[i];
+        const ad_real x0 = (ad_real)c->in[0];
+        const ad_real x1 = (ad_real)c->in[1];
         out[0] = 0;
-        st = ad_ceiling_margin((ad_real)c->in[0], (ad_real)c->in[1], &out[0]);
+        fill(out_n, sizeof out_n, 0x5aU);
+        st = ad_ceiling_margin(x0, x1, &out[0]);
+#if RUNNER_BATCH
+        st_n[0] = 0xffU;
+        bad = ad_ceiling_margin_n(&x0, &x1, out_n, st_n, 1U);
+#else
+        out_n[0] = out[0];
+        st_n[0] = (unsigned char)st;
+        bad = is_error(st);
+#endif
         check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,
-                   c->scale, AD_VEC_CEILING_MARGIN_NOUT);
+                   c->scale, AD_VEC_CEILING_MARGIN_NOUT,
+                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_CEILING_MARGIN_NOUT));
     }
+}
+
+static void null_ceiling_margin(tally_t *t)
+{
+    const ad_real a = (ad_real)1;
+    int bad = 0;
+    bad += (ad_ceiling_margin(a, a, NULL) != AD_INVALID_INPUT);
+#if RUNNER_BATCH
+    {
+        ad_real y = (ad_real)7;
+        ad_real y0;
+        unsigned char s = 0xa5U;
+        y0 = y;
+        bad += (ad_ceiling_margin_n(NULL, &a, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_ceiling_margin_n(&a, NULL, &y, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_ceiling_margin_n(&a, &a, NULL, &s, 1U) != AD_BATCH_NULL);
+        bad += (ad_ceiling_margin_n(&a, &a, &y, NULL, 1U) != AD_BATCH_NULL);
+        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);
+    }
+#endif
+    contract(t, bad, "a NULL pointer is refused and nothing is written");
 }
 
 int main(void)
 {
     tally_t t;
     long failed = 0;
-    printf("airdata vector runner: suite %s, profile %s, %s port, bound %g * eps * scale\n",
-           AD_VEC_SUITE_VERSION, AD_VEC_PROFILE, RUNNER_PRECISION, AD_VEC_K);
+    printf("airdata vector runner: suite %s, profile %s, %s port, bound %g * eps * scale%s\n",
+           AD_VEC_SUITE_VERSION, AD_VEC_PROFILE, RUNNER_PRECISION, AD_VEC_K, RUNNER_BATCH_NOTE);
     tally_start(&t, "atmosphere");
     run_atmosphere(&t);
+    if (t.failed == 0) {
+        null_atmosphere(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "geopotential_altitude");
     run_geopotential_altitude(&t);
+    if (t.failed == 0) {
+        null_geopotential_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "geometric_altitude");
     run_geometric_altitude(&t);
+    if (t.failed == 0) {
+        null_geometric_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "pressure_altitude");
     run_pressure_altitude(&t);
+    if (t.failed == 0) {
+        null_pressure_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "pressure_at_altitude");
     run_pressure_at_altitude(&t);
+    if (t.failed == 0) {
+        null_pressure_at_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "baro_corrected_altitude");
     run_baro_corrected_altitude(&t);
+    if (t.failed == 0) {
+        null_baro_corrected_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "altimeter_setting");
     run_altimeter_setting(&t);
+    if (t.failed == 0) {
+        null_altimeter_setting(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "density_altitude");
     run_density_altitude(&t);
+    if (t.failed == 0) {
+        null_density_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "impact_pressure_from_mach");
     run_impact_pressure_from_mach(&t);
+    if (t.failed == 0) {
+        null_impact_pressure_from_mach(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "mach_from_impact_pressure");
     run_mach_from_impact_pressure(&t);
+    if (t.failed == 0) {
+        null_mach_from_impact_pressure(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "impact_pressure_from_cas");
     run_impact_pressure_from_cas(&t);
+    if (t.failed == 0) {
+        null_impact_pressure_from_cas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "cas_from_impact_pressure");
     run_cas_from_impact_pressure(&t);
+    if (t.failed == 0) {
+        null_cas_from_impact_pressure(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "cas_from_mach");
     run_cas_from_mach(&t);
+    if (t.failed == 0) {
+        null_cas_from_mach(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "mach_from_cas");
     run_mach_from_cas(&t);
+    if (t.failed == 0) {
+        null_mach_from_cas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "eas_from_mach");
     run_eas_from_mach(&t);
+    if (t.failed == 0) {
+        null_eas_from_mach(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "mach_from_eas");
     run_mach_from_eas(&t);
+    if (t.failed == 0) {
+        null_mach_from_eas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "tas_from_mach");
     run_tas_from_mach(&t);
+    if (t.failed == 0) {
+        null_tas_from_mach(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "mach_from_tas");
     run_mach_from_tas(&t);
+    if (t.failed == 0) {
+        null_mach_from_tas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "dynamic_pressure");
     run_dynamic_pressure(&t);
+    if (t.failed == 0) {
+        null_dynamic_pressure(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "sat_from_tat");
     run_sat_from_tat(&t);
+    if (t.failed == 0) {
+        null_sat_from_tat(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "tat_from_sat");
     run_tat_from_sat(&t);
+    if (t.failed == 0) {
+        null_tat_from_sat(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "air_data");
     run_air_data(&t);
+    if (t.failed == 0) {
+        null_air_data(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "stall_eas");
     run_stall_eas(&t);
+    if (t.failed == 0) {
+        null_stall_eas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "stall_mach");
     run_stall_mach(&t);
+    if (t.failed == 0) {
+        null_stall_mach(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "stall_cas");
     run_stall_cas(&t);
+    if (t.failed == 0) {
+        null_stall_cas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "stall_tas");
     run_stall_tas(&t);
+    if (t.failed == 0) {
+        null_stall_tas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "crossover_altitude");
     run_crossover_altitude(&t);
+    if (t.failed == 0) {
+        null_crossover_altitude(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "max_operating_cas");
     run_max_operating_cas(&t);
+    if (t.failed == 0) {
+        null_max_operating_cas(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "max_operating_mach");
     run_max_operating_mach(&t);
+    if (t.failed == 0) {
+        null_max_operating_mach(&t);
+    }
     failed += tally_finish(&t);
     tally_start(&t, "ceiling_margin");
     run_ceiling_margin(&t);
+    if (t.failed == 0) {
+        null_ceiling_margin(&t);
+    }
     failed += tally_finish(&t);
+#if RUNNER_BATCH
+    failed += check_domains();
+#endif
     printf("%d functions: %s\n", AD_VEC_FUNCTION_COUNT, failed == 0 ? "all passed" : "FAILED");
     return failed == 0 ? 0 : 1;
 }
+

@@ -3,20 +3,26 @@
  * Domain.classify, with the ranges of airdata/_domains.py).
  *
  * Special cases, in the order they are decided:
- *   unknown domain id, NaN or +-inf               -> AD_INVALID_INPUT
- *   wrong sign for the quantity (see sign below)  -> AD_INVALID_INPUT
+ *   domain id outside the table, NaN or +-inf     -> AD_INVALID_INPUT
+ *   wrong sign for the quantity (see ad_sign)     -> AD_INVALID_INPUT
  *   finite, right sign, outside [lo, hi]          -> AD_OUT_OF_RANGE
  *   otherwise                                     -> AD_OK
  * Exact comparisons only: no rounding error.
+ *
+ * The domains are a table indexed by ad_domain_id (airdata_batch.h), so there is no
+ * branch per domain; the only id check is the table bound, which a caller of
+ * ad_check_n can reach with an id outside the enumeration.
  */
 #include "ad_internal.h"
+
+/* The last domain id of airdata_batch.h; the table has one row per id 0..AD_DOM_LAST. */
+#define AD_DOM_LAST AD_DOM_SUBSONIC_MACH_LIMIT
 
 /* Which proper numbers are invalid rather than out of range. */
 typedef enum {
     AD_SIGN_ANY = 0,          /* only NaN and infinities are invalid */
     AD_SIGN_NONNEGATIVE = 1,  /* negative values are invalid too */
-    AD_SIGN_POSITIVE = 2,     /* zero and negative values are invalid too */
-    AD_SIGN_NONE = 3          /* unknown domain id: every value is invalid */
+    AD_SIGN_POSITIVE = 2      /* zero and negative values are invalid too */
 } ad_sign;
 
 typedef struct {
@@ -25,69 +31,54 @@ typedef struct {
     ad_sign sign;
 } ad_domain;
 
-/* The limit functions' argument domains (airdata/limits.py): all positive. */
-static ad_domain ad_limit_domain_of(ad_domain_id id)
-{
-    ad_domain d = { (ad_real)0, (ad_real)0, AD_SIGN_POSITIVE };
-    switch (id) {
-    case AD_DOM_WEIGHT: d.lo = AD_WEIGHT_LO; d.hi = AD_WEIGHT_HI; break;
-    case AD_DOM_WING_AREA: d.lo = AD_WING_AREA_LO; d.hi = AD_WING_AREA_HI; break;
-    case AD_DOM_CL_MAX: d.lo = AD_CL_MAX_LO; d.hi = AD_CL_MAX_HI; break;
-    case AD_DOM_LOAD_FACTOR: d.lo = AD_LOAD_FACTOR_LO; d.hi = AD_LOAD_FACTOR_HI; break;
-    case AD_DOM_CAS_LIMIT: d.lo = AD_CAS_LIMIT_LO; d.hi = AD_CAS_LIMIT_HI; break;
-    case AD_DOM_MACH_LIMIT: d.lo = AD_MACH_LIMIT_LO; d.hi = AD_MACH_LIMIT_HI; break;
-    case AD_DOM_SUBSONIC_MACH_LIMIT:
-        d.lo = AD_SUBSONIC_MACH_LIMIT_LO; d.hi = AD_SUBSONIC_MACH_LIMIT_HI; break;
-    default: d.sign = AD_SIGN_NONE; break;
-    }
-    return d;
-}
+/* One row per ad_domain_id, in the enumeration's order (checked by the vectors: every
+ * argument of every function is classified through this table). */
+static const ad_domain ad_domains[AD_DOM_LAST + 1] = {
+    { AD_MACH_LO, AD_MACH_HI, AD_SIGN_NONNEGATIVE },                       /* MACH */
+    { AD_SPEED_LO, AD_SPEED_HI, AD_SIGN_NONNEGATIVE },                     /* SPEED */
+    { AD_TEMPERATURE_LO, AD_TEMPERATURE_HI, AD_SIGN_POSITIVE },            /* TEMPERATURE */
+    { AD_DELTA_T_LO, AD_DELTA_T_HI, AD_SIGN_ANY },                         /* DELTA_T */
+    { AD_RECOVERY_LO, AD_RECOVERY_HI, AD_SIGN_NONNEGATIVE },               /* RECOVERY */
+    { AD_IMPACT_PRESSURE_LO, AD_IMPACT_PRESSURE_HI, AD_SIGN_NONNEGATIVE }, /* IMPACT_PRESSURE */
+    { AD_ELEVATION_LO, AD_ELEVATION_HI, AD_SIGN_ANY },                     /* ELEVATION */
+    { AD_ALTITUDE_LO, AD_ALTITUDE_HI, AD_SIGN_ANY },                       /* ALTITUDE */
+    { AD_GEOMETRIC_LO, AD_GEOMETRIC_HI, AD_SIGN_ANY },                     /* GEOMETRIC */
+    { AD_PRESSURE_LO, AD_PRESSURE_HI, AD_SIGN_POSITIVE },                  /* PRESSURE */
+    { AD_SETTING_LO, AD_SETTING_HI, AD_SIGN_POSITIVE },                    /* SETTING */
+    { AD_TOTAL_PRESSURE_LO, AD_TOTAL_PRESSURE_HI, AD_SIGN_POSITIVE },      /* TOTAL_PRESSURE */
+    { AD_NOISE_BAND_LO, AD_NOISE_BAND_HI, AD_SIGN_NONNEGATIVE },           /* NOISE_BAND */
+    { AD_WEIGHT_LO, AD_WEIGHT_HI, AD_SIGN_POSITIVE },                      /* WEIGHT */
+    { AD_WING_AREA_LO, AD_WING_AREA_HI, AD_SIGN_POSITIVE },                /* WING_AREA */
+    { AD_CL_MAX_LO, AD_CL_MAX_HI, AD_SIGN_POSITIVE },                      /* CL_MAX */
+    { AD_LOAD_FACTOR_LO, AD_LOAD_FACTOR_HI, AD_SIGN_POSITIVE },            /* LOAD_FACTOR */
+    { AD_CAS_LIMIT_LO, AD_CAS_LIMIT_HI, AD_SIGN_POSITIVE },                /* CAS_LIMIT */
+    { AD_MACH_LIMIT_LO, AD_MACH_LIMIT_HI, AD_SIGN_POSITIVE },              /* MACH_LIMIT */
+    { AD_SUBSONIC_MACH_LIMIT_LO, AD_SUBSONIC_MACH_LIMIT_HI,
+      AD_SIGN_POSITIVE }                                                   /* SUBSONIC_MACH_LIMIT */
+};
 
-static ad_domain ad_domain_of(ad_domain_id id)
+/* Classify a finite x against one domain. */
+static ad_status ad_classify(ad_real x, const ad_domain *d)
 {
-    ad_domain d = { AD_ALTITUDE_LO, AD_ALTITUDE_HI, AD_SIGN_ANY };
-    switch (id) {
-    case AD_DOM_MACH: d.lo = AD_MACH_LO; d.hi = AD_MACH_HI; d.sign = AD_SIGN_NONNEGATIVE; break;
-    case AD_DOM_SPEED: d.lo = AD_SPEED_LO; d.hi = AD_SPEED_HI; d.sign = AD_SIGN_NONNEGATIVE; break;
-    case AD_DOM_TEMPERATURE:
-        d.lo = AD_TEMPERATURE_LO; d.hi = AD_TEMPERATURE_HI; d.sign = AD_SIGN_POSITIVE; break;
-    case AD_DOM_DELTA_T: d.lo = AD_DELTA_T_LO; d.hi = AD_DELTA_T_HI; break;
-    case AD_DOM_RECOVERY:
-        d.lo = AD_RECOVERY_LO; d.hi = AD_RECOVERY_HI; d.sign = AD_SIGN_NONNEGATIVE; break;
-    case AD_DOM_IMPACT_PRESSURE:
-        d.lo = AD_IMPACT_PRESSURE_LO; d.hi = AD_IMPACT_PRESSURE_HI;
-        d.sign = AD_SIGN_NONNEGATIVE; break;
-    case AD_DOM_ELEVATION: d.lo = AD_ELEVATION_LO; d.hi = AD_ELEVATION_HI; break;
-    case AD_DOM_GEOMETRIC: d.lo = AD_GEOMETRIC_LO; d.hi = AD_GEOMETRIC_HI; break;
-    case AD_DOM_PRESSURE:
-        d.lo = AD_PRESSURE_LO; d.hi = AD_PRESSURE_HI; d.sign = AD_SIGN_POSITIVE; break;
-    case AD_DOM_SETTING:
-        d.lo = AD_SETTING_LO; d.hi = AD_SETTING_HI; d.sign = AD_SIGN_POSITIVE; break;
-    case AD_DOM_TOTAL_PRESSURE:
-        d.lo = AD_TOTAL_PRESSURE_LO; d.hi = AD_TOTAL_PRESSURE_HI;
-        d.sign = AD_SIGN_POSITIVE; break;
-    case AD_DOM_NOISE_BAND:
-        d.lo = AD_NOISE_BAND_LO; d.hi = AD_NOISE_BAND_HI; d.sign = AD_SIGN_NONNEGATIVE; break;
-    case AD_DOM_ALTITUDE: break;
-    default: d = ad_limit_domain_of(id); break;
+    ad_status st = AD_OK;
+    if ((d->sign == AD_SIGN_POSITIVE) && (x <= (ad_real)0)) {
+        st = AD_INVALID_INPUT;
+    } else if ((d->sign == AD_SIGN_NONNEGATIVE) && (x < (ad_real)0)) {
+        st = AD_INVALID_INPUT;
+    } else if ((x < d->lo) || (x > d->hi)) {
+        st = AD_OUT_OF_RANGE;
+    } else {
+        st = AD_OK;
     }
-    return d;
+    return st;
 }
 
 ad_status ad_i_check(ad_real x, ad_domain_id domain)
 {
-    const ad_domain d = ad_domain_of(domain);
-    ad_status st = AD_OK;
-    if ((d.sign == AD_SIGN_NONE) || !isfinite(x)) {
-        st = AD_INVALID_INPUT;
-    } else if ((d.sign == AD_SIGN_POSITIVE) && (x <= (ad_real)0)) {
-        st = AD_INVALID_INPUT;
-    } else if ((d.sign == AD_SIGN_NONNEGATIVE) && (x < (ad_real)0)) {
-        st = AD_INVALID_INPUT;
-    } else if ((x < d.lo) || (x > d.hi)) {
-        st = AD_OUT_OF_RANGE;
-    } else {
-        st = AD_OK;
+    const unsigned int id = (unsigned int)domain;
+    ad_status st = AD_INVALID_INPUT;
+    if ((id <= (unsigned int)AD_DOM_LAST) && isfinite(x)) {
+        st = ad_classify(x, &ad_domains[id]);
     }
     return st;
 }
