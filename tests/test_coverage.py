@@ -203,33 +203,11 @@ def test_every_port_source_is_measured(coverage: dict[str, Coverage]) -> None:
 #: range of valid inputs never needs; each misses a few branches the other takes.
 PER_PRECISION_FLOOR = {"binary64": (100.0, 99.7), "binary32": (99.7, 99.4)}
 
-#: The one branch no vector reaches yet: limits.c ad_stall_eas_i with 2 n W and
-#: rho0 S CLmax normal but their quotient subnormal (e.g. weight 1e-305 N, wing area
-#: 2000 m2, CLmax 10, n = 1: q = 2e-305/24500 = 8e-310).  Reachable from the public
-#: interface, so the fix is a vector case, not removing the branch.
-MISSING_CASE = "limits.c:86: branch 4 never taken"
 
-
-@pytest.mark.xfail(strict=True, reason="no vector case has 2 n W and rho0 S CLmax normal "
-                   "with a subnormal quotient (limits.c:86, branch 4); see MISSING_CASE")
 def test_vectors_alone_reach_every_line_and_branch(coverage: dict[str, Coverage]) -> None:
     cov = coverage["both"]
     assert cov.percent("lines") == 100.0, cov.missed[:30]
     assert cov.percent("branches") == 100.0, cov.missed[:30]
-
-
-def test_vectors_alone_reach_all_but_the_missing_case(coverage: dict[str, Coverage]) -> None:
-    cov = coverage["both"]
-    print("\nmissed by the vectors alone (binary64 and binary32 together): "
-          + ("; ".join(cov.missed) or "none"))
-    assert cov.percent("lines") == 100.0, cov.missed[:30]
-    assert all(m.startswith(MISSING_CASE) for m in cov.missed), cov.missed[:30]
-    assert cov.total("branches")[1] - cov.total("branches")[0] <= 1
-    # batch.c and domains.c, unreachable by the vectors before the runner checked the
-    # batch entry points and the NULL rule, are now complete
-    for name in ("batch.c", "domains.c"):
-        assert cov.total("lines", name)[0] == cov.total("lines", name)[1] > 0
-        assert cov.total("branches", name)[0] == cov.total("branches", name)[1] > 0
 
 
 @pytest.mark.parametrize("precision", ["binary64", "binary32"])

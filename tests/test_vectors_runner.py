@@ -156,7 +156,7 @@ def test_runner_fails_a_port_that_computes_nothing(tmp_path: Path) -> None:
     stub = tmp_path / "stub.c"
     stub.write_text("\n".join(body) + "\n")
     exe = tmp_path / "runner_stub"
-    _compile(exe, [RUNNER, stub])
+    _compile(exe, [RUNNER, stub], "-DRUNNER_SCALAR_ONLY")  # the stub has no batch entry points
     r = _run(exe)
     rows = _summary(r.stdout)
     assert r.returncode == 1

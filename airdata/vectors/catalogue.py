@@ -620,6 +620,8 @@ def _stall_extra(name: str) -> Callable[[Profile], list[CaseSeed]]:
         # Tiny stall speeds (the second below Mach 2^-40 at sea level: linear SPD-1).
         add(("tiny",), weight=1.0e-6, wing_area=2000.0, cl_max=10.0, load_factor=1e-3)
         add(("tiny", "extreme"), weight=1.0e-300, wing_area=1.0, cl_max=1.0, ps=p.p0)
+        # 2 n W and rho0 S CLmax normal but their quotient subnormal (the factored LIM-1).
+        add(("tiny", "extreme"), weight=1.0e-305, wing_area=2000.0, cl_max=10.0)
         if name == "stall_eas":
             return seeds
         # Stall speeds swept over pressure (the altitude column of an envelope).
