@@ -10,6 +10,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
+from ._blocks import elementwise
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .atmosphere import (
     LayerTable,
@@ -41,6 +42,7 @@ def layer_of_ratio(x: F64, base: F64) -> NDArray[np.intp]:
     return count_bases([x <= b for b in base[1:]])
 
 
+@elementwise(1)
 def altitude_of_pressure(p: F64, t: LayerTable) -> F64:
     """ALT-1 kernel: geopotential altitude of pressure ``p`` (already in range).
 
@@ -307,6 +309,7 @@ def density_altitude(
     return args.finish(altitude_of_density(p, temp, rho, t))
 
 
+@elementwise(3)
 def altitude_of_density(p: F64, temp: F64, rho: F64, t: LayerTable) -> F64:
     """ALT-4 kernel: density altitude of (p, temp), whose density is ``rho``."""
     i = layer_of_ratio(rho, t.rho_b)

@@ -17,6 +17,7 @@ from numpy.typing import NDArray
 
 from . import _dd as dd
 from . import _domains as dom
+from ._blocks import elementwise
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .profiles import GAMMA, Profile, get_profile
 
@@ -104,6 +105,7 @@ def standard_temperature(h: F64, i: NDArray[np.intp], t: LayerTable) -> F64:
     return t.tb[i] + t.lapse[i] * (h - t.hb[i])
 
 
+@elementwise(2)
 def pressure_dd(h: F64, i: NDArray[np.intp], t: LayerTable) -> tuple[F64, F64]:
     """ATM-3 kernel as a double-double: p = (pb + pb_lo) exp(e).
 
@@ -142,6 +144,7 @@ def dd_tables(prof: Profile) -> DDTables:
                     dd.const(prof.exact("beta")), dd.const(prof.exact("R")))
 
 
+@elementwise(3)
 def state_dd(h: F64, dT: F64, i: NDArray[np.intp], t: LayerTable,
              prof: Profile) -> tuple[F64, F64, F64, F64, F64]:
     """ATM-2..ATM-6 kernel in double-double: T, p, rho, mu, nu.

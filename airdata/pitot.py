@@ -47,6 +47,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
+from ._blocks import elementwise
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .profiles import Profile, get_profile
 from .status import Status
@@ -68,6 +69,7 @@ NEWTON_STEPS = 4
 _PHI_INF = float(np.exp(2.5 * np.log1p(-0.2 / 7.2)))
 
 
+@elementwise(1)
 def ratio_from_mach(m: F64) -> F64:
     """PIT-1 kernel: qc/ps as a function of Mach number (both branches).
 
@@ -151,6 +153,7 @@ def newton_iterate(a: F64, steps: int) -> F64:
     return u
 
 
+@elementwise(1)
 def mach_from_ratio(x: F64) -> F64:
     """PIT-2 kernel: Mach number from qc/ps = ``x`` (in [0, RATIO_MAX]).
 
