@@ -412,6 +412,30 @@ def test_verify_reports_changed_value_with_file_and_case(tmp_path: Path) -> None
     assert any(p.file == "c/ad_vec_pressure_altitude.h" for p in probs)
 
 
+def test_verify_accepts_last_bit_drift_unless_exact(tmp_path: Path) -> None:
+    """One ulp off (as another numpy/libm build may give): accepted and counted by default,
+    refused with ``exact`` (the staleness check of this repository)."""
+    from airdata.vectors.cheader import render_function_header
+
+    root = _mini(tmp_path)
+
+    def nudge(c: dict[str, Any]) -> None:
+        c["expected"]["h"] = jsonio.encode_number(math.nextafter(_val(c["expected"]["h"]),
+                                                                 math.inf))
+    cid = _edit_case(root, "pressure_altitude", 5, nudge)
+    doc = json.loads((root / "functions" / "pressure_altitude.json").read_text())
+    (root / "c" / "ad_vec_pressure_altitude.h").write_text(render_function_header(doc))
+    _reseal(root)
+    tolerant = verify_suite(root, exact=False)
+    assert tolerant.ok and tolerant.drift == 1, [str(p) for p in tolerant.problems]
+    assert "1 value(s) differ in the last bits" in tolerant.summary()
+    probs = verify_suite(root).problems
+    assert [p.case for p in probs] == [cid] and "within tolerance" in probs[0].message
+    assert _cli("vectors", "verify", str(root)).returncode == 0
+    r = _cli("vectors", "verify", "--exact", str(root))
+    assert r.returncode == 1 and cid in r.stderr
+
+
 def test_verify_reports_checksum_mismatch(tmp_path: Path) -> None:
     root = _mini(tmp_path)
     cid = _edit_case(root, "dynamic_pressure", 3, lambda c: c.update(status=2))
