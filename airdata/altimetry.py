@@ -6,6 +6,8 @@ Equations ALT-1 .. ALT-5 of docs/equations.md.
 
 from __future__ import annotations
 
+from functools import cache
+
 import numpy as np
 from numpy.typing import NDArray
 
@@ -18,6 +20,7 @@ from .atmosphere import (
     layer_of_altitude,
     layer_table,
     standard_pressure,
+    standard_temperature,
 )
 from .profiles import Profile, get_profile
 from .status import Status
@@ -303,7 +306,7 @@ def density_altitude(
     t = layer_table(prof)
     p, temp = args["ps"], args["sat"]
     rho = p / (prof.R * temp)
-    rho_lo, rho_hi = _density_range(prof)
+    rho_lo, rho_hi = density_range(prof)
     args.flag((rho < rho_lo) | (rho > rho_hi), Status.OUT_OF_RANGE, "density ps/(R sat)",
               rho, f"[{rho_lo!r}, {rho_hi!r}] kg/m3")
     return args.finish(altitude_of_density(p, temp, rho, t))
@@ -317,16 +320,11 @@ def altitude_of_density(p: F64, temp: F64, rho: F64, t: LayerTable) -> F64:
     return t.hb[i] + (np.expm1(t.kd[i] * lr) / t.m_div[i] + t.sh_iso[i] * lr)
 
 
+@cache
 def density_range(prof: Profile) -> tuple[float, float]:
-    """Standard densities at the top and the bottom of the model, kg/m3."""
-    return _density_range(prof)
-
-
-def _density_range(prof: Profile) -> tuple[float, float]:
-    """Standard densities at the top and the bottom of the model, kg/m3."""
+    """Standard densities at the top and the bottom of the model, kg/m3 (derived once)."""
     t = layer_table(prof)
     h = np.array([prof.h_max, prof.h_min])
     i = layer_of_altitude(h, t)
-    temp = t.tb[i] + t.lapse[i] * (h - t.hb[i])
-    rho = standard_pressure(h, i, t) / (prof.R * temp)
+    rho = standard_pressure(h, i, t) / (prof.R * standard_temperature(h, i, t))
     return float(rho[0]), float(rho[1])
