@@ -1,15 +1,17 @@
 """cffi build script of the bundled C port (out-of-line API mode).
 
-Two extension modules are built from the same C sources in ``bindings/c/src``:
+Four extension modules are built from the same C sources in ``bindings/c/src``:
 
-``airdata._cport64``
-    ``ad_real`` is binary64 (double).
-``airdata._cport32``
-    ``ad_real`` is binary32 (float), compiled with ``-DAIRDATA_SINGLE``.
+``airdata._cport64``, ``airdata._cport32``
+    ICAO Doc 7488/3 constants (the default profile); ``ad_real`` is binary64 (double),
+    or binary32 (float, compiled with ``-DAIRDATA_SINGLE``).
+``airdata._cport64_us1976``, ``airdata._cport32_us1976``
+    The same with the U.S. Standard Atmosphere 1976 constants
+    (``-DAIRDATA_PROFILE_US1976``, the switch of the generated ``ad_constants.h``).
 
 setuptools runs this through ``cffi_modules`` in ``setup.py``; by hand::
 
-    python airdata/_cport_build.py      # builds both modules in the current directory
+    python airdata/_cport_build.py      # builds the four modules in the current directory
 
 The cdef is taken from the port's own headers (``airdata.h`` and ``airdata_batch.h``)
 with the preprocessor lines removed, so the binding cannot drift from the interface.
@@ -24,7 +26,11 @@ from pathlib import Path
 from cffi import FFI
 
 ROOT = Path(__file__).resolve().parent.parent
+# The repository's bindings/c when building (a clone or an sdist); in an installed wheel
+# the copy under airdata/_share (this module is then only read, for cdef_text).
 C_DIR = ROOT / "bindings" / "c"
+if not (C_DIR / "include" / "airdata.h").is_file():
+    C_DIR = Path(__file__).resolve().parent / "_share" / "bindings" / "c"
 INCLUDE = C_DIR / "include"
 SRC = C_DIR / "src"
 
@@ -60,13 +66,28 @@ def _compile_args() -> list[str]:
     return []
 
 
-def make_builder(single: bool) -> FFI:
-    """The FFI builder of one precision."""
+#: Constants profile -> suffix of its module names and its preprocessor switch.
+PROFILES: dict[str, tuple[str, str | None]] = {
+    "icao": ("", None),
+    "us1976": ("_us1976", "AIRDATA_PROFILE_US1976"),
+}
+
+
+def module_name(single: bool, profile: str = "icao") -> str:
+    """Full name of the extension module of one precision and profile."""
+    return f"airdata._cport{32 if single else 64}{PROFILES[profile][0]}"
+
+
+def make_builder(single: bool, profile: str = "icao") -> FFI:
+    """The FFI builder of one precision and constants profile."""
     ffi = FFI()
     ffi.cdef(cdef_text(single))
-    macros = [("AIRDATA_SINGLE", "1")] if single else []
+    macros: list[tuple[str, str | None]] = [("AIRDATA_SINGLE", "1")] if single else []
+    switch = PROFILES[profile][1]
+    if switch is not None:
+        macros.append((switch, "1"))
     ffi.set_source(
-        "airdata._cport32" if single else "airdata._cport64",
+        module_name(single, profile),
         _source(),
         include_dirs=[str(INCLUDE), str(SRC)],
         define_macros=macros,
@@ -79,7 +100,9 @@ def make_builder(single: bool) -> FFI:
 
 ffibuilder64 = make_builder(single=False)
 ffibuilder32 = make_builder(single=True)
+ffibuilder64_us1976 = make_builder(single=False, profile="us1976")
+ffibuilder32_us1976 = make_builder(single=True, profile="us1976")
 
 if __name__ == "__main__":
-    ffibuilder64.compile(verbose=True)
-    ffibuilder32.compile(verbose=True)
+    for builder in (ffibuilder64, ffibuilder32, ffibuilder64_us1976, ffibuilder32_us1976):
+        builder.compile(verbose=True)

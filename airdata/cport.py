@@ -12,8 +12,10 @@ floats.  Array results have the dtype of the precision (float64 or float32).  Th
 whole array is evaluated by one call of the port's batch entry point
 (``bindings/c/include/airdata_batch.h``), not one call per element.
 
-The port is compiled with the ICAO profile only: any other ``profile`` raises
-:class:`ValueError`.
+``profile`` selects the build as well as the reference used for error messages: the
+port is compiled once per constants profile (``"icao"``, the default: ``airdata._cport64``
+and ``_cport32``; ``"us1976"``: ``airdata._cport64_us1976`` and ``_cport32_us1976``, the
+same sources with ``-DAIRDATA_PROFILE_US1976``).  :data:`MODULES` lists them.
 
 Error messages: the argument checks are done by the port (its ``ad_check_n``); for a
 failing derived quantity (for example the Mach number a CAS reaches at a given
@@ -61,60 +63,72 @@ __all__ = [
     "max_operating_cas", "max_operating_mach", "ceiling_margin",
 ]
 
-#: Precision name -> (extension module, numpy dtype of ``ad_real``).
+#: Precision name -> (extension module of the ICAO build, numpy dtype of ``ad_real``).
 PRECISIONS: dict[str, tuple[str, type[np.floating[Any]]]] = {
     "double": ("airdata._cport64", np.float64),
     "single": ("airdata._cport32", np.float32),
 }
 
-# Argument domain name -> (port's ad_domain_id, the reference's Domain).
-_DOMAINS: dict[str, tuple[int, Callable[[], Domain]]] = {
-    "mach": (0, lambda: dom.MACH),
-    "speed": (1, lambda: dom.SPEED),
-    "temperature": (2, lambda: dom.TEMPERATURE),
-    "delta_t": (3, lambda: dom.DELTA_T),
-    "recovery": (4, lambda: dom.RECOVERY),
-    "impact_pressure": (5, lambda: dom.IMPACT_PRESSURE),
-    "elevation": (6, lambda: dom.ELEVATION),
-    "altitude": (7, lambda: dom.altitude(ICAO)),
-    "geometric": (8, lambda: dom.geometric(ICAO)),
-    "pressure": (9, lambda: dom.pressure(ICAO)),
-    "setting": (10, lambda: dom.setting(ICAO)),
-    "total_pressure": (11, lambda: _chain._TOTAL_PRESSURE),
-    "noise_band": (12, lambda: _chain._NOISE),
-    "weight": (13, lambda: _lim.WEIGHT),
-    "wing_area": (14, lambda: _lim.WING_AREA),
-    "cl_max": (15, lambda: _lim.CL_MAX),
-    "load_factor": (16, lambda: _lim.LOAD_FACTOR),
-    "cas_limit": (17, lambda: _lim.CAS_LIMIT),
-    "mach_limit": (18, lambda: _lim.MACH_LIMIT),
-    "subsonic_mach_limit": (19, lambda: _lim.SUBSONIC_MACH_LIMIT),
+#: (profile name, precision name) -> extension module.
+MODULES: dict[tuple[str, str], str] = {
+    **{("icao", prec): mod for prec, (mod, _) in PRECISIONS.items()},
+    **{("us1976", prec): mod + "_us1976" for prec, (mod, _) in PRECISIONS.items()},
+}
+
+# Argument domain name -> (port's ad_domain_id, the reference's Domain of a profile).
+_DOMAINS: dict[str, tuple[int, Callable[[Profile], Domain]]] = {
+    "mach": (0, lambda p: dom.MACH),
+    "speed": (1, lambda p: dom.SPEED),
+    "temperature": (2, lambda p: dom.TEMPERATURE),
+    "delta_t": (3, lambda p: dom.DELTA_T),
+    "recovery": (4, lambda p: dom.RECOVERY),
+    "impact_pressure": (5, lambda p: dom.IMPACT_PRESSURE),
+    "elevation": (6, lambda p: dom.ELEVATION),
+    "altitude": (7, dom.altitude),
+    "geometric": (8, dom.geometric),
+    "pressure": (9, dom.pressure),
+    "setting": (10, dom.setting),
+    "total_pressure": (11, lambda p: _chain._TOTAL_PRESSURE),
+    "noise_band": (12, lambda p: _chain._NOISE),
+    "weight": (13, lambda p: _lim.WEIGHT),
+    "wing_area": (14, lambda p: _lim.WING_AREA),
+    "cl_max": (15, lambda p: _lim.CL_MAX),
+    "load_factor": (16, lambda p: _lim.LOAD_FACTOR),
+    "cas_limit": (17, lambda p: _lim.CAS_LIMIT),
+    "mach_limit": (18, lambda p: _lim.MACH_LIMIT),
+    "subsonic_mach_limit": (19, lambda p: _lim.SUBSONIC_MACH_LIMIT),
 }
 
 _ERRORS = (int(Status.INVALID_INPUT), int(Status.OUT_OF_RANGE), int(Status.NO_CONVERGENCE))
 
 
 @cache
-def _module(precision: str) -> ModuleType:
-    """The compiled extension module of ``precision``."""
+def _module(precision: str, profile: str = "icao") -> ModuleType:
+    """The compiled extension module of ``precision`` and constants ``profile``."""
     if precision not in PRECISIONS:
         raise ValueError(f"precision = {precision!r}: choose 'double' or 'single'")
-    return importlib.import_module(PRECISIONS[precision][0])
+    if (profile, precision) not in MODULES:
+        raise ValueError(f"profile {profile!r}: the bundled C port is compiled for "
+                         f"{', '.join(sorted({p for p, _ in MODULES}))}")
+    return importlib.import_module(MODULES[profile, precision])
 
 
 def _check_profile(profile: Profile | str | None) -> Profile:
+    """The profile object; ValueError when the port has no build of it."""
     prof = get_profile(profile)
-    if prof is not ICAO:
-        raise ValueError(f"profile {prof.name!r}: the bundled C port is compiled with the "
-                         "'icao' profile only")
+    if (prof.name, "double") not in MODULES:
+        raise ValueError(f"profile {prof.name!r}: the bundled C port is compiled for "
+                         f"{', '.join(sorted({p for p, _ in MODULES}))}")
     return prof
 
 
 class _Batch:
     """Broadcast inputs of one call, converted to contiguous arrays of ``ad_real``."""
 
-    def __init__(self, precision: str, named: dict[str, tuple[ArrayLike, str]]) -> None:
-        self.mod = _module(precision)
+    def __init__(self, precision: str, named: dict[str, tuple[ArrayLike, str]],
+                 prof: Profile = ICAO) -> None:
+        self.mod = _module(precision, prof.name)
+        self.prof = prof
         self.dtype = PRECISIONS[precision][1]
         self.names = list(named)
         self.domains = [d for _, d in named.values()]
@@ -162,7 +176,7 @@ class _Batch:
             if bad.size:
                 i = int(bad[0])
                 raise DomainError(name, float(self.wide[k].flat[i]), self.index(i),
-                                  domain().describe(), Status(int(st[i])))
+                                  domain(self.prof).describe(), Status(int(st[i])))
         i = int(np.flatnonzero(np.isin(self.status, _ERRORS))[0])
         status = Status(int(self.status[i]))
         try:
@@ -181,9 +195,9 @@ class _Batch:
 
 
 def _simple(cname: str, reference: Callable[..., Any], strict: bool, precision: str,
-            named: dict[str, tuple[ArrayLike, str]]) -> FloatOrArray:
-    """Evaluate a one-output function through its batch entry point."""
-    b = _Batch(precision, named)
+            named: dict[str, tuple[ArrayLike, str]], prof: Profile = ICAO) -> FloatOrArray:
+    """Evaluate a one-output function through its batch entry point (build of ``prof``)."""
+    b = _Batch(precision, named, prof)
     out = np.empty(b.n, dtype=b.dtype)
     if b.n:
         fn = getattr(b.mod.lib, f"ad_{cname}_n")
@@ -204,7 +218,7 @@ def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | No
     dT : float or array_like, optional
         Temperature deviation, K, in [-100, 100].
     profile : Profile or str, optional
-        Must be the ICAO profile (the port's compiled constants).
+        Constants profile, ``"icao"`` (default) or ``"us1976"``: selects the build.
     strict : bool, optional
         Raise on the first bad element (default) or give NaN for just the bad elements.
     precision : {"double", "single"}, optional
@@ -224,7 +238,7 @@ def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | No
         As the reference.
     """
     prof = _check_profile(profile)
-    b = _Batch(precision, {"h": (h, "altitude"), "dT": (dT, "delta_t")})
+    b = _Batch(precision, {"h": (h, "altitude"), "dT": (dT, "delta_t")}, prof)
     out = np.empty((b.n, 6), dtype=b.dtype)
     if b.n:
         bad = b.done(b.mod.lib.ad_atmosphere_n(*b.inputs(), b.ptr(out, "ad_atmosphere_t[]"),
@@ -240,7 +254,7 @@ def geopotential_altitude(z: ArrayLike, *, profile: Profile | str | None = None,
     """Port of :func:`airdata.geopotential_altitude` (ATM-7); ``precision`` as above."""
     prof = _check_profile(profile)
     return _simple("geopotential_altitude", lambda *a: _ref_geopotential(*a, profile=prof),
-                   strict, precision, {"z": (z, "geometric")})
+                   strict, precision, {"z": (z, "geometric")}, prof=prof)
 
 
 def geometric_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
@@ -248,7 +262,7 @@ def geometric_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
     """Port of :func:`airdata.geometric_altitude` (ATM-8); ``precision`` as above."""
     prof = _check_profile(profile)
     return _simple("geometric_altitude", lambda *a: _ref_geometric(*a, profile=prof),
-                   strict, precision, {"h": (h, "altitude")})
+                   strict, precision, {"h": (h, "altitude")}, prof=prof)
 
 
 def pressure_altitude(ps: ArrayLike, *, profile: Profile | str | None = None,
@@ -256,7 +270,7 @@ def pressure_altitude(ps: ArrayLike, *, profile: Profile | str | None = None,
     """Port of :func:`airdata.pressure_altitude` (ALT-1); ``precision`` as above."""
     prof = _check_profile(profile)
     return _simple("pressure_altitude", lambda *a: _alt.pressure_altitude(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure")})
+                   strict, precision, {"ps": (ps, "pressure")}, prof=prof)
 
 
 def pressure_at_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
@@ -265,7 +279,7 @@ def pressure_at_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
     prof = _check_profile(profile)
     return _simple("pressure_at_altitude",
                    lambda *a: _alt.pressure_at_altitude(*a, profile=prof),
-                   strict, precision, {"h": (h, "altitude")})
+                   strict, precision, {"h": (h, "altitude")}, prof=prof)
 
 
 def baro_corrected_altitude(ps: ArrayLike, setting: ArrayLike, *,
@@ -275,7 +289,8 @@ def baro_corrected_altitude(ps: ArrayLike, setting: ArrayLike, *,
     prof = _check_profile(profile)
     return _simple("baro_corrected_altitude",
                    lambda *a: _alt.baro_corrected_altitude(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure"), "setting": (setting, "setting")})
+                   strict, precision, {"ps": (ps, "pressure"), "setting": (setting, "setting")},
+                   prof=prof)
 
 
 def altimeter_setting(ps: ArrayLike, elevation: ArrayLike, *,
@@ -285,7 +300,7 @@ def altimeter_setting(ps: ArrayLike, elevation: ArrayLike, *,
     prof = _check_profile(profile)
     return _simple("altimeter_setting", lambda *a: _alt.altimeter_setting(*a, profile=prof),
                    strict, precision,
-                   {"ps": (ps, "setting"), "elevation": (elevation, "elevation")})
+                   {"ps": (ps, "setting"), "elevation": (elevation, "elevation")}, prof=prof)
 
 
 def density_altitude(ps: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
@@ -293,7 +308,8 @@ def density_altitude(ps: ArrayLike, sat: ArrayLike, *, profile: Profile | str | 
     """Port of :func:`airdata.density_altitude` (ALT-4); ``precision`` as above."""
     prof = _check_profile(profile)
     return _simple("density_altitude", lambda *a: _alt.density_altitude(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure"), "sat": (sat, "temperature")})
+                   strict, precision, {"ps": (ps, "pressure"), "sat": (sat, "temperature")},
+                   prof=prof)
 
 
 def impact_pressure_from_mach(mach: ArrayLike, ps: ArrayLike, *,
@@ -303,7 +319,7 @@ def impact_pressure_from_mach(mach: ArrayLike, ps: ArrayLike, *,
     prof = _check_profile(profile)
     return _simple("impact_pressure_from_mach",
                    lambda *a: _pit.impact_pressure_from_mach(*a, profile=prof),
-                   strict, precision, {"mach": (mach, "mach"), "ps": (ps, "pressure")})
+                   strict, precision, {"mach": (mach, "mach"), "ps": (ps, "pressure")}, prof=prof)
 
 
 def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *,
@@ -313,7 +329,8 @@ def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *,
     prof = _check_profile(profile)
     return _simple("mach_from_impact_pressure",
                    lambda *a: _pit.mach_from_impact_pressure(*a, profile=prof),
-                   strict, precision, {"qc": (qc, "impact_pressure"), "ps": (ps, "pressure")})
+                   strict, precision, {"qc": (qc, "impact_pressure"), "ps": (ps, "pressure")},
+                   prof=prof)
 
 
 def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = None,
@@ -322,7 +339,7 @@ def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = 
     prof = _check_profile(profile)
     return _simple("impact_pressure_from_cas",
                    lambda *a: _pit.impact_pressure_from_cas(*a, profile=prof),
-                   strict, precision, {"cas": (cas, "speed")})
+                   strict, precision, {"cas": (cas, "speed")}, prof=prof)
 
 
 def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = None,
@@ -331,7 +348,7 @@ def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = N
     prof = _check_profile(profile)
     return _simple("cas_from_impact_pressure",
                    lambda *a: _pit.cas_from_impact_pressure(*a, profile=prof),
-                   strict, precision, {"qc": (qc, "impact_pressure")})
+                   strict, precision, {"qc": (qc, "impact_pressure")}, prof=prof)
 
 
 def _speed2(cname: str, first: str, dfirst: str, second: str, dsecond: str,
@@ -340,7 +357,7 @@ def _speed2(cname: str, first: str, dfirst: str, second: str, dsecond: str,
     prof = _check_profile(profile)
     ref = getattr(_spd, cname)
     return _simple(cname, lambda *x: ref(*x, profile=prof), strict, precision,
-                   {first: (a, dfirst), second: (b, dsecond)})
+                   {first: (a, dfirst), second: (b, dsecond)}, prof=prof)
 
 
 def cas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
@@ -421,7 +438,7 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     Parameters
     ----------
     ps, pt, tat, recovery, setting, noise_band, profile, strict
-        As :func:`airdata.air_data` (``profile`` must be the ICAO profile).
+        As :func:`airdata.air_data` (``profile`` selects the build).
     precision : {"double", "single"}, optional
         Which build of the port to run.
 
@@ -449,7 +466,7 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
         "recovery": (recovery, "recovery")}
     if setting is not None:
         named["setting"] = (setting, "setting")
-    b = _Batch(precision, named)
+    b = _Batch(precision, named, prof)
     out = np.empty((b.n, len(_AIR_FIELDS)), dtype=b.dtype)
     if b.n:
         ins = b.inputs()
@@ -484,7 +501,7 @@ def stall_eas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike,
     prof = _check_profile(profile)
     return _simple("stall_eas", lambda *a: _lim.stall_eas(*a, profile=prof), strict,
                    precision, {**_wing(weight, wing_area, cl_max),
-                               "load_factor": (load_factor, "load_factor")})
+                               "load_factor": (load_factor, "load_factor")}, prof=prof)
 
 
 def stall_mach(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
@@ -494,7 +511,7 @@ def stall_mach(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: A
     prof = _check_profile(profile)
     return _simple("stall_mach", lambda *a: _lim.stall_mach(*a, profile=prof), strict,
                    precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
-                               "load_factor": (load_factor, "load_factor")})
+                               "load_factor": (load_factor, "load_factor")}, prof=prof)
 
 
 def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
@@ -504,7 +521,7 @@ def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: Ar
     prof = _check_profile(profile)
     return _simple("stall_cas", lambda *a: _lim.stall_cas(*a, profile=prof), strict,
                    precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
-                               "load_factor": (load_factor, "load_factor")})
+                               "load_factor": (load_factor, "load_factor")}, prof=prof)
 
 
 def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
@@ -516,7 +533,7 @@ def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: Ar
     return _simple("stall_tas", lambda *a: _lim.stall_tas(*a, profile=prof), strict,
                    precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
                                "sat": (sat, "temperature"),
-                               "load_factor": (load_factor, "load_factor")})
+                               "load_factor": (load_factor, "load_factor")}, prof=prof)
 
 
 def crossover_altitude(cas_limit: ArrayLike, mach_limit: ArrayLike, *,
@@ -527,7 +544,7 @@ def crossover_altitude(cas_limit: ArrayLike, mach_limit: ArrayLike, *,
     return _simple("crossover_altitude",
                    lambda *a: _lim.crossover_altitude(*a, profile=prof), strict, precision,
                    {"cas_limit": (cas_limit, "cas_limit"),
-                    "mach_limit": (mach_limit, "subsonic_mach_limit")})
+                    "mach_limit": (mach_limit, "subsonic_mach_limit")}, prof=prof)
 
 
 def _max_operating(cname: str, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike,
@@ -537,7 +554,7 @@ def _max_operating(cname: str, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: 
     ref = getattr(_lim, cname)
     return _simple(cname, lambda *a: ref(*a, profile=prof), strict, precision,
                    {"ps": (ps, "pressure"), "cas_limit": (cas_limit, "cas_limit"),
-                    "mach_limit": (mach_limit, "mach_limit")})
+                    "mach_limit": (mach_limit, "mach_limit")}, prof=prof)
 
 
 def max_operating_cas(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
@@ -561,4 +578,5 @@ def ceiling_margin(ps: ArrayLike, ceiling: ArrayLike, *, profile: Profile | str 
     """Port of :func:`airdata.ceiling_margin` (LIM-5); ``precision`` as above."""
     prof = _check_profile(profile)
     return _simple("ceiling_margin", lambda *a: _lim.ceiling_margin(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure"), "ceiling": (ceiling, "altitude")})
+                   strict, precision, {"ps": (ps, "pressure"), "ceiling": (ceiling, "altitude")},
+                   prof=prof)

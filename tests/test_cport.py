@@ -138,9 +138,27 @@ def test_air_data_record_and_statuses(precision: str) -> None:
         cport.air_data(5e4, 6e4, 260.0, noise_band=-1.0, precision=precision)
 
 
-def test_other_profiles_and_precisions_are_refused() -> None:
-    with pytest.raises(ValueError, match="icao"):
-        cport.pressure_altitude(5e4, profile="us1976")
+@pytest.mark.parametrize("precision", PRECISIONS)
+def test_us1976_build_follows_the_us1976_reference(precision: str) -> None:
+    # The us1976 build has its own constants: binary64 equals the us1976 reference bit for
+    # bit here, and differs from the icao build (R = 8314.32/28.9644 against 287.05287,
+    # U.S. Standard Atmosphere 1976 and ICAO Doc 7488, from memory).
+    ps = np.array([95_000.0, 50_000.0, 20_000.0, 1_000.0])
+    got = cport.pressure_altitude(ps, profile="us1976", precision=precision)
+    ref = airdata.pressure_altitude(ps, profile="us1976")
+    tol = 0.0 if precision == "double" else 4 * 2.0 ** -23
+    np.testing.assert_allclose(got, ref, rtol=tol, atol=0.0)
+    icao = cport.pressure_altitude(ps, precision=precision)
+    assert np.all(got != icao)
+    atm = cport.atmosphere(30_000.0, profile="us1976", precision=precision)
+    assert atm.profile == "us1976"
+    with pytest.raises(airdata.DomainError, match=r"ps = 1000000000.0 is out of range"):
+        cport.pressure_altitude(1e9, profile="us1976", precision=precision)
+
+
+def test_unknown_profiles_and_precisions_are_refused() -> None:
+    with pytest.raises(ValueError, match="profile"):
+        cport.pressure_altitude(5e4, profile="mars")
     with pytest.raises(ValueError, match="precision"):
         cport.pressure_altitude(5e4, precision="quad")
 
@@ -168,7 +186,7 @@ class _CountingLib:
 def test_an_array_costs_one_batch_call(precision: str, monkeypatch: pytest.MonkeyPatch) -> None:
     real = cport._module(precision)
     counting = _CountingLib(real.lib)
-    monkeypatch.setattr(cport, "_module", lambda p: SimpleNamespace(ffi=real.ffi, lib=counting))
+    monkeypatch.setattr(cport, "_module", lambda p, *_: SimpleNamespace(ffi=real.ffi, lib=counting))
     ps = np.linspace(1000.0, 100000.0, 1000)
     y = cport.pressure_altitude(ps, precision=precision)
     assert counting.calls == {"ad_pressure_altitude_n": 1}
