@@ -21,9 +21,10 @@ from __future__ import annotations
 
 from pathlib import Path
 
-__all__ = ["ResourceError", "SUITE_FOLDERS", "SHARE", "REPOSITORY", "SHARED_FILES",
-           "data_root", "origin", "suite_dir", "c_dir", "include_dir", "src_dir",
-           "runner_dir", "makefile", "port_files", "suite_header_files"]
+__all__ = ["ResourceError", "OverwriteError", "SUITE_FOLDERS", "SHARE", "REPOSITORY",
+           "SHARED_FILES", "data_root", "origin", "suite_dir", "c_dir", "include_dir",
+           "src_dir", "runner_dir", "makefile", "port_files", "suite_header_files",
+           "copy_files"]
 
 _PACKAGE = Path(__file__).resolve().parent
 
@@ -164,3 +165,65 @@ def suite_header_files(profile: str = "icao") -> list[tuple[Path, str]]:
     """The C headers of a checked-in suite: (source path, file name), sorted."""
     c = _existing(suite_dir(profile) / "c", f"the {profile} suite's C headers")
     return [(p, p.name) for p in sorted(c.glob("*.h"))]
+
+
+class OverwriteError(FileExistsError):
+    """Files a copy would overwrite (nothing was written).
+
+    Attributes
+    ----------
+    existing : list of Path
+        Every destination file that already exists.
+    """
+
+    def __init__(self, existing: list[Path]) -> None:
+        self.existing = existing
+        super().__init__(f"{len(existing)} file(s) exist and would be overwritten: "
+                         + ", ".join(str(p) for p in existing))
+
+
+def copy_files(files: list[tuple[Path, str]], dest: str | Path, force: bool = False
+               ) -> list[Path]:
+    """Copy ``(source, relative name)`` pairs into ``dest``, keeping the relative names.
+
+    Parameters
+    ----------
+    files : list of (Path, str)
+        What to copy, as :func:`port_files` and :func:`suite_header_files` give it.
+    dest : str or Path
+        Destination directory, made if missing.
+    force : bool, optional
+        Overwrite files that exist (default: refuse, writing nothing).
+
+    Returns
+    -------
+    list of Path
+        The files written, in order.
+
+    Raises
+    ------
+    OverwriteError
+        Some destination files exist and ``force`` is false; nothing was written.
+    NotADirectoryError
+        ``dest`` (or a folder inside it the copy needs) exists and is not a directory.
+    """
+    import shutil
+
+    root = Path(dest)
+    if root.exists() and not root.is_dir():
+        raise NotADirectoryError(f"{root}: exists and is not a directory")
+    targets = [(src, root / rel) for src, rel in files]
+    for _, target in targets:
+        for parent in target.relative_to(root).parents:
+            folder = root / parent
+            if folder.exists() and not folder.is_dir():
+                raise NotADirectoryError(f"{folder}: exists and is not a directory")
+        if target.is_dir():
+            raise NotADirectoryError(f"{target}: is a directory, a file is to be copied there")
+    existing = [t for _, t in targets if t.exists()]
+    if existing and not force:
+        raise OverwriteError(existing)
+    for src, target in targets:
+        target.parent.mkdir(parents=True, exist_ok=True)
+        shutil.copyfile(src, target)
+    return [t for _, t in targets]

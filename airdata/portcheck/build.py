@@ -38,18 +38,16 @@ __all__ = ["PortBuildError", "PortSpec", "Port", "bundled_port", "build_port", "
 #: Precision name -> whether ``AIRDATA_SINGLE`` is defined.
 PRECISIONS: dict[str, bool] = {"double": False, "single": True}
 
-_PKG_ROOT = Path(__file__).resolve().parents[2]
-
-
 def _bundled_c_dir() -> Path:
-    """``bindings/c`` of this checkout (an editable install) or, after ``pip install .``
-    (which installs the compiled port but not its C sources), of the working directory
-    when that is a clone of the repository."""
-    for root in (_PKG_ROOT, Path.cwd()):
-        candidate = root / "bindings" / "c"
-        if (candidate / "include" / "airdata.h").is_file():
-            return candidate
-    return _PKG_ROOT / "bindings" / "c"
+    """``bindings/c`` of this installation: the installed package's copy, or the
+    repository's folder beside the package (never the working directory;
+    :mod:`airdata.resources`)."""
+    from .. import resources
+
+    try:
+        return resources.c_dir()
+    except resources.ResourceError:
+        return resources.REPOSITORY / "bindings" / "c"   # reported by bundled_port()
 
 
 #: The bundled port: its interface (include/) and sources (src/).
@@ -98,8 +96,8 @@ def bundled_port() -> PortSpec:
     sources = tuple(sorted(src.glob("*.c")))
     if not sources:
         raise PortBuildError("the bundled C port is not available in this installation "
-                             f"({src} has no C sources): run from a clone of the repository "
-                             "or pass --source or --library", "")
+                             f"({src} has no C sources): reinstall the package, or pass "
+                             "--source or --library", "")
     return PortSpec("bundled", sources, None, (src,),
                     extra_compile_args=("-std=c99", "-ffp-contract=off"))
 

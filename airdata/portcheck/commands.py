@@ -26,6 +26,10 @@ _CAUTION = ("airdata is an engineering and verification aid, not certified fligh
             "the authority's rules; local regulations and licensed practice take precedence.")
 
 
+#: The preprocessor switch of the us1976 constants (airdata.h).
+_US1976 = "AIRDATA_PROFILE_US1976"
+
+
 def _define(text: str) -> tuple[str, str | None]:
     name, sep, value = text.partition("=")
     if not name.isidentifier():
@@ -62,7 +66,9 @@ def cmd_check(args: argparse.Namespace) -> int:
     """Run the check; print the table; write the report; return the exit status."""
     try:
         precisions = _precisions(args)
-        suite = load_cases(args.suite, args.only or None)
+        suite = load_cases(args.suite, args.only or None, args.profile)
+        if suite.profile == "us1976" and all(n != _US1976 for n, _ in args.define):
+            args.define.append((_US1976, None))
         spec = _spec(args)
     except (SuiteError, PortBuildError, ValueError) as exc:
         print(f"airdata port check: error: {exc}", file=sys.stderr)
@@ -91,7 +97,7 @@ def cmd_check(args: argparse.Namespace) -> int:
 
 
 def register(subparsers: Any) -> None:
-    """Add the ``port`` parser and its ``check`` sub-command."""
+    """Add the ``port`` parser and its ``check`` and ``copy`` sub-commands."""
     port = subparsers.add_parser(
         "port", help="check a C port against a golden vector suite",
         description="Check a C port of airdata (the bundled one, or your own sources or "
@@ -108,8 +114,13 @@ def register(subparsers: Any) -> None:
                     "checked. Exit status 0: all pass; 1: some case failed; 2: the check "
                     "could not run.",
         epilog=_CAUTION)
-    c.add_argument("--suite", default="vectors", metavar="DIR",
-                   help="vector suite directory (default: ./vectors)")
+    c.add_argument("--suite", default=None, metavar="DIR",
+                   help="vector suite directory (default: the checked-in suite of --profile "
+                        "that this installation carries; see 'airdata vectors path')")
+    c.add_argument("--profile", choices=["icao", "us1976"], default=None,
+                   help="constants profile: selects the default suite, and the port is "
+                        "compiled with -DAIRDATA_PROFILE_US1976 for us1976 (default: the "
+                        "suite's profile; icao without --suite)")
     c.add_argument("--precision", choices=["double", "single", "both"], default=None,
                    help="binary64 (double), binary32 (single) or both; default both, or "
                         "double with --library")
@@ -127,3 +138,6 @@ def register(subparsers: Any) -> None:
     c.add_argument("--only", nargs="+", metavar="FUNC",
                    help="check only these functions (reference names, e.g. pressure_altitude)")
     c.set_defaults(func=cmd_check)
+    from .copy import register_copy
+
+    register_copy(sub)

@@ -130,15 +130,20 @@ def _function_cases(rel: str, doc: dict[str, Any]) -> FunctionCases:
                          x, expected, scale, status, b32)
 
 
-def load_cases(root: str | Path = "vectors", only: Sequence[str] | None = None) -> LoadedSuite:
+def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None,
+               profile: str | None = None) -> LoadedSuite:
     """Read a suite (all functions, or those named in ``only``) for a port check.
 
     Parameters
     ----------
-    root : str or Path
-        Suite directory holding ``manifest.json``.
+    root : str or Path, optional
+        Suite directory holding ``manifest.json``; default: the checked-in suite of
+        ``profile`` that this installation carries (:func:`airdata.resources.suite_dir`).
     only : sequence of str, optional
         Function names to read; every name must be in the manifest.
+    profile : {"icao", "us1976"}, optional
+        Constants profile the suite must have (default: icao when ``root`` is not
+        given, else whatever the suite's manifest says).
 
     Returns
     -------
@@ -149,8 +154,16 @@ def load_cases(root: str | Path = "vectors", only: Sequence[str] | None = None) 
     ------
     SuiteError
         Missing directory or manifest, schema violation, checksum mismatch, unknown
-        function, or an unreadable number; the message names the file.
+        function, a profile other than ``profile``, or an unreadable number; the
+        message names the file.
     """
+    if root is None:
+        from .. import resources
+
+        try:
+            root = resources.suite_dir(profile or "icao")
+        except (resources.ResourceError, ValueError) as exc:
+            raise SuiteError(str(exc)) from None
     rootp = Path(root)
     if not rootp.is_dir():
         raise SuiteError(f"{rootp}: no vector suite here (not a directory); build one with "
@@ -172,6 +185,9 @@ def load_cases(root: str | Path = "vectors", only: Sequence[str] | None = None) 
     if unknown:
         raise SuiteError(f"function(s) {', '.join(unknown)} not in the suite; it has: "
                          f"{', '.join(entries)}")
+    if profile is not None and manifest["profile"]["name"] != profile:
+        raise SuiteError(f"{rootp}: the suite has profile {manifest['profile']['name']!r}, "
+                         f"not {profile!r}")
     tol = manifest["tolerance"]
     suite = LoadedSuite(rootp, str(manifest["suite_version"]), str(manifest["profile"]["name"]),
                         float(tol["k"]), _num(tol["eps_binary64"], "manifest eps_binary64"),

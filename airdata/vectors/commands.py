@@ -1,15 +1,23 @@
-"""The ``airdata vectors`` sub-commands: build, verify, diff."""
+"""The ``airdata vectors`` sub-commands: build, verify, diff, path, copy.
+
+``verify`` and ``copy`` use the checked-in suite this installation carries (the installed
+package's copy, or the repository's folder beside the package: :mod:`airdata.resources`)
+unless a directory is named; the working directory is never searched.
+"""
 
 from __future__ import annotations
 
 import argparse
 import sys
 import time
+from pathlib import Path
 from typing import Any
 
+from .. import resources
 from ..profiles import PROFILES
 
-__all__ = ["register", "cmd_build", "cmd_verify", "cmd_diff"]
+__all__ = ["register", "cmd_build", "cmd_verify", "cmd_diff", "cmd_path", "cmd_copy",
+           "located"]
 
 _CAUTION = ("An engineering and verification aid, not certified flight software; "
             "flight software follows its own certification basis.")
@@ -22,6 +30,8 @@ def cmd_build(args: argparse.Namespace) -> int:
     """``airdata vectors build``: write a suite; prints a one-line summary."""
     from .build import SUITE_VERSION, build_suite
 
+    if args.out is None:
+        args.out = resources.SUITE_FOLDERS[args.profile]
     t0 = time.perf_counter()
     totals = build_suite(args.out, args.profile)
     dt = time.perf_counter() - t0
@@ -33,16 +43,78 @@ def cmd_build(args: argparse.Namespace) -> int:
 
 def cmd_verify(args: argparse.Namespace) -> int:
     """``airdata vectors verify``: 0 when the suite is sound, 1 otherwise."""
-    from .verify import verify_suite
+    from .verify import Problem, verify_suite
 
-    report = verify_suite(args.dir, recompute=not args.no_recompute, exact=args.exact)
+    try:
+        root = _suite(args.dir, args.profile)
+    except (resources.ResourceError, ValueError) as exc:
+        print(f"airdata vectors verify: error: {exc}", file=sys.stderr)
+        return 2
+    report = verify_suite(root, recompute=not args.no_recompute, exact=args.exact)
+    if args.profile is not None and report.profile not in ("?", args.profile):
+        report.problems.append(Problem(".", None, f"the suite has profile {report.profile!r}, "
+                                                  f"not {args.profile!r}"))
     for p in report.problems[:MAX_PRINTED]:
-        print(f"error: {args.dir}/{p}", file=sys.stderr)
+        print(f"error: {located(root, p)}", file=sys.stderr)
     if len(report.problems) > MAX_PRINTED:
         print(f"error: ... and {len(report.problems) - MAX_PRINTED} more problem(s)",
               file=sys.stderr)
     print(report.summary(), file=sys.stdout if report.ok else sys.stderr)
     return 0 if report.ok else 1
+
+
+def _suite(named: str | None, profile: str | None) -> Path:
+    """The directory the user named, else the checked-in suite of ``profile``."""
+    if named is not None:
+        return Path(named)
+    return resources.suite_dir(profile or "icao")
+
+
+def located(root: str | Path, problem: Any) -> str:
+    """``problem`` (a :class:`~airdata.vectors.verify.Problem`, whose file is relative to
+    the suite root, ``"."`` for the root itself) with the file joined to ``root`` once."""
+    from .verify import Problem
+
+    rel = str(problem.file)
+    where = Path(root) if rel in ("", ".") else Path(root) / rel
+    return str(Problem(str(where), problem.case, problem.message))
+
+
+def cmd_path(args: argparse.Namespace) -> int:
+    """``airdata vectors path``: where the checked-in suites are."""
+    try:
+        if args.profile is not None:
+            print(resources.suite_dir(args.profile))
+            return 0
+        rows = [(name, resources.suite_dir(name)) for name in sorted(resources.SUITE_FOLDERS)]
+        rows += [("headers", resources.include_dir()), ("port", resources.src_dir()),
+                 ("runner", resources.runner_dir())]
+    except (resources.ResourceError, ValueError) as exc:
+        print(f"airdata vectors path: error: {exc}", file=sys.stderr)
+        return 2
+    print(f"# {resources.origin()}: {resources.data_root()}")
+    for name, path in rows:
+        print(f"{name:<8} {path}")
+    return 0
+
+
+def cmd_copy(args: argparse.Namespace) -> int:
+    """``airdata vectors copy DIR``: the suite's C headers into a firmware tree."""
+    from ..portcheck.copy import report_copy
+
+    try:
+        root = _suite(args.suite, args.profile)
+        c = root / "c"
+        if not c.is_dir():
+            raise resources.ResourceError(f"{c}: no C headers here (not a directory)")
+        files = [(p, p.name) for p in sorted(c.glob("*.h"))]
+        if not files:
+            raise resources.ResourceError(f"{c}: no C headers (*.h) in it")
+    except (resources.ResourceError, ValueError) as exc:
+        print(f"airdata vectors copy: error: {exc}", file=sys.stderr)
+        return 2
+    return report_copy("airdata vectors copy", files, args.dir, args.force,
+                       f"the C headers of the vector suite {root}")
 
 
 def cmd_diff(args: argparse.Namespace) -> int:
@@ -61,17 +133,19 @@ def cmd_diff(args: argparse.Namespace) -> int:
 def register(subparsers: Any) -> None:
     """Add the ``vectors`` parser and its sub-commands."""
     vec = subparsers.add_parser(
-        "vectors", help="build, verify and compare golden test vector suites",
+        "vectors", help="build, verify, compare, locate and copy golden test vector suites",
         description="Golden test vectors of every catalogue function: build a suite from "
-                    "the reference, verify one, or compare two.", epilog=_CAUTION)
+                    "the reference, verify one, compare two, show where the checked-in "
+                    "suites are, or copy a suite's C headers.", epilog=_CAUTION)
     sub = vec.add_subparsers(dest="vectors_command", metavar="ACTION")
     sub.required = True
     b = sub.add_parser("build", help="write a complete suite from the reference",
                        description="Write manifest, JSON files, schemas, C headers and "
                                    "changelog. Deterministic: byte-identical every time.",
                        epilog=_CAUTION)
-    b.add_argument("--out", default="vectors", metavar="DIR",
-                   help="output directory (default: ./vectors)")
+    b.add_argument("--out", default=None, metavar="DIR",
+                   help="output directory (default: ./vectors for icao, ./vectors-us1976 "
+                        "for us1976: the checked-in suites, when run in the repository root)")
     b.add_argument("--profile", choices=sorted(PROFILES), default="icao",
                    help="constants profile (default: icao)")
     b.set_defaults(func=cmd_build)
@@ -83,8 +157,12 @@ def register(subparsers: Any) -> None:
                                    "counted and accepted unless --exact is given. Exit "
                                    "status 1 on any problem.",
                        epilog=_CAUTION)
-    v.add_argument("dir", nargs="?", default="vectors", metavar="DIR",
-                   help="suite directory (default: ./vectors)")
+    v.add_argument("dir", nargs="?", default=None, metavar="DIR",
+                   help="suite directory (default: the checked-in suite of --profile that "
+                        "this installation carries; see 'airdata vectors path')")
+    v.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
+                   help="which checked-in suite to verify (default: icao); with DIR, the "
+                        "profile the suite must have")
     v.add_argument("--no-recompute", action="store_true",
                    help="skip re-computing the expected values")
     v.add_argument("--exact", action="store_true",
@@ -99,3 +177,24 @@ def register(subparsers: Any) -> None:
     d.add_argument("old", metavar="OLD")
     d.add_argument("new", metavar="NEW")
     d.set_defaults(func=cmd_diff)
+    pa = sub.add_parser("path", help="print where the checked-in suites and C files are",
+                        description="Print the directory of each checked-in suite (icao, "
+                                    "us1976) and of the C interface, port and runner in this "
+                                    "installation; with --profile, just that suite's "
+                                    "directory.", epilog=_CAUTION)
+    pa.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
+                    help="print only this profile's suite directory")
+    pa.set_defaults(func=cmd_path)
+    cp = sub.add_parser("copy", help="copy a suite's C headers into DIR",
+                        description="Copy the C99 headers of the checked-in suite of "
+                                    "--profile (or of --suite SUITE) into DIR, for the vector "
+                                    "runner of a firmware tree ('airdata port copy'). Refuses "
+                                    "to overwrite existing files (each is named) unless "
+                                    "--force.", epilog=_CAUTION)
+    cp.add_argument("dir", metavar="DIR", help="destination directory (made if missing)")
+    cp.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
+                    help="which checked-in suite (default: icao)")
+    cp.add_argument("--suite", default=None, metavar="SUITE",
+                    help="copy the headers of this suite directory instead")
+    cp.add_argument("--force", action="store_true", help="overwrite existing files")
+    cp.set_defaults(func=cmd_copy)

@@ -305,12 +305,17 @@ def _check_doc(spec: FunctionSpec, rel: str, doc: dict[str, Any], manifest: dict
 def verify_suite(root: str | Path = "vectors", recompute: bool = True,
                  max_bytes: int = MAX_FILE_BYTES, exact: bool = True) -> VerifyReport:
     """Check a suite completely; see the module docstring."""
-    report = VerifyReport(str(root), exact=exact)
+    report = VerifyReport(str(Path(root)), exact=exact)
     drift = [0]
     try:
         suite = load_suite(root, report.problems, max_bytes)
     except VectorFileError as exc:
-        report.problems.append(Problem(exc.path, None, exc.problem))
+        # Problem files are relative to the suite root ("." for the root itself).
+        try:
+            rel = Path(exc.path).relative_to(Path(root)).as_posix()
+        except ValueError:
+            rel = exc.path
+        report.problems.append(Problem(rel, None, exc.problem))
         return report
     m = suite.manifest
     report.suite_version = str(m.get("suite_version", "?"))

@@ -1,0 +1,74 @@
+"""``airdata port copy DIR``: the bundled C port, copied into a firmware tree.
+
+Copies the port's sources and private headers (``src/``), the interface (``include/``),
+the vector runner (``runner/``), the test driver (``tests/driver.c``) and the Makefile
+from this installation (:mod:`airdata.resources`) into ``DIR``, keeping that layout, so
+``make -C DIR`` builds the libraries and ``make -C DIR runner VECTORS=...`` the runner.
+Existing files are not overwritten unless ``--force`` is given; each one is named.
+
+An engineering and verification aid, not certified flight software.
+"""
+
+from __future__ import annotations
+
+import argparse
+import sys
+from typing import Any
+
+from .. import resources
+
+__all__ = ["register_copy", "cmd_copy", "report_copy"]
+
+_CAUTION = ("airdata is an engineering and verification aid, not certified flight software. "
+            "Flight software follows its own certification basis (for example DO-178C) and "
+            "the authority's rules; local regulations and licensed practice take precedence.")
+
+
+def report_copy(command: str, files: list[tuple[Any, str]], dest: str, force: bool,
+                what: str) -> int:
+    """Copy ``files`` into ``dest`` and print the outcome; the exit status.
+
+    0: copied; 1: refused (files exist, no ``--force``) or the destination is unusable;
+    2: the files are missing from this installation.
+    """
+    try:
+        written = resources.copy_files(files, dest, force)
+    except resources.OverwriteError as exc:
+        for p in exc.existing:
+            print(f"{command}: error: {p} exists (pass --force to overwrite)", file=sys.stderr)
+        print(f"{command}: error: nothing copied: {len(exc.existing)} file(s) would be "
+              "overwritten", file=sys.stderr)
+        return 1
+    except OSError as exc:
+        print(f"{command}: error: {exc}", file=sys.stderr)
+        return 1
+    print(f"copied {what} ({len(written)} files, from the {resources.origin()} at "
+          f"{resources.data_root()}) to {dest}")
+    return 0
+
+
+def cmd_copy(args: argparse.Namespace) -> int:
+    """Copy the bundled port into ``args.dir``."""
+    try:
+        files = resources.port_files()
+    except resources.ResourceError as exc:
+        print(f"airdata port copy: error: {exc}", file=sys.stderr)
+        return 2
+    return report_copy("airdata port copy", files, args.dir, args.force,
+                       "the C port: Makefile, include/, src/, runner/, tests/")
+
+
+def register_copy(sub: Any) -> None:
+    """Add ``port copy`` to the ``port`` sub-parsers."""
+    c = sub.add_parser(
+        "copy", help="copy the bundled C port (sources, headers, Makefile, runner) into DIR",
+        description="Copy the bundled C99 port into DIR: Makefile, include/ (airdata.h, "
+                    "airdata_batch.h), src/ (the port), runner/ (the vector runner) and "
+                    "tests/driver.c, in that layout. 'make -C DIR' builds it; 'make -C DIR "
+                    "runner VECTORS=HEADERS' builds and runs the vector runner against the "
+                    "headers 'airdata vectors copy HEADERS' wrote. Refuses to overwrite "
+                    "existing files (each is named) unless --force.",
+        epilog=_CAUTION)
+    c.add_argument("dir", metavar="DIR", help="destination directory (made if missing)")
+    c.add_argument("--force", action="store_true", help="overwrite existing files")
+    c.set_defaults(func=cmd_copy)
