@@ -317,6 +317,29 @@ static int inf_bits(double x)
     return (u & 0x7fffffffffffffffULL) == 0x7ff0000000000000ULL;
 }
 
+/* x as a C99 hex float, " [-]0x1.<13 hex digits>p<exp>" (subnormals 0x0.<...>p-1022),
+ * built from the bit pattern: a target's printf may lack %a (newlib built without C99
+ * I/O formats prints "a"), but %lx and %d are everywhere. */
+static void put_hex(double x)
+{
+    uint64_t u;
+    unsigned long hi;
+    unsigned long lo;
+    int e;
+    (void)memcpy(&u, &x, sizeof u);
+    e = (int)((u >> 52) & 0x7ffU);
+    hi = (unsigned long)((u >> 32) & 0xfffffU);
+    lo = (unsigned long)(u & 0xffffffffU);
+    printf((u >> 63) != 0U ? " -" : " ");
+    if (e == 0 && hi == 0U && lo == 0U) {
+        printf("0x0p+0");
+    } else if (e == 0) {
+        printf("0x0.%05lx%08lxp-1022", hi, lo);
+    } else {
+        printf("0x1.%05lx%08lxp%+d", hi, lo, e - 1023);
+    }
+}
+
 /* One results line: id, status, every output as a C99 hex float (nan, inf, -inf). */
 static void emit(const char *id, ad_status st, const ad_real *got, int nout)
 {
@@ -329,7 +352,7 @@ static void emit(const char *id, ad_status st, const ad_real *got, int nout)
         } else if (inf_bits(g)) {
             printf(g > 0.0 ? " inf" : " -inf");
         } else {
-            printf(" %a", g);
+            put_hex(g);
         }
     }
     printf("\n");
