@@ -19,7 +19,7 @@ from .compare import CheckResult, check_port
 from .report import render_text, report_dict
 from .suite import SuiteError, load_cases
 
-__all__ = ["register", "cmd_check"]
+__all__ = ["register", "cmd_check", "cmd_verify"]
 
 _CAUTION = ("airdata is an engineering and verification aid, not certified flight software. "
             "Flight software follows its own certification basis (for example DO-178C) and "
@@ -96,6 +96,47 @@ def cmd_check(args: argparse.Namespace) -> int:
     return 0 if all(r.ok for rows in results.values() for r in rows) else 1
 
 
+def cmd_verify(args: argparse.Namespace) -> int:
+    """``port verify``: judge a results file as ``port check`` judges a port."""
+    from .results import ResultsError, judge_results, read_results
+
+    try:
+        suite = load_cases(args.suite, args.only or None)
+        ignored: frozenset[str] = frozenset()
+        if args.only:
+            full = load_cases(args.suite)
+            ignored = frozenset(c for n, fc in full.functions.items()
+                                if n not in suite.functions for c in fc.ids)
+        parsed = read_results(args.results, suite, ignored)
+    except (SuiteError, ResultsError) as exc:
+        print(f"airdata port verify: error: {exc}", file=sys.stderr)
+        return 2
+    precision = args.precision or parsed.precision or "double"
+    if args.precision and parsed.precision and args.precision != parsed.precision:
+        print(f"airdata port verify: error: {args.results}: the file says precision "
+              f"{parsed.precision}, --precision says {args.precision}", file=sys.stderr)
+        return 2
+    for p in parsed.problems[:50]:
+        print(f"{args.results}: {p}")
+    if len(parsed.problems) > 50:
+        print(f"{args.results}: ... and {len(parsed.problems) - 50} more problem(s)")
+    results = {precision: judge_results(suite, parsed, precision)}
+    label = f"results file {args.results}"
+    print(render_text(suite, label, results))
+    if parsed.problems:
+        print(f"FAIL: {len(parsed.problems)} problem(s) in the results file (listed above)")
+    if args.report:
+        doc: dict[str, Any] = report_dict(suite, label, [str(args.results)], results)
+        doc["results_file"] = {"path": str(args.results),
+                               "problems": [str(p) for p in parsed.problems[:1000]],
+                               "problem_count": len(parsed.problems)}
+        doc["passed"] = bool(doc["passed"]) and not parsed.problems
+        Path(args.report).write_text(json.dumps(doc, indent=1) + "\n")
+        print(f"report written to {args.report}")
+    ok = all(r.ok for rows in results.values() for r in rows) and not parsed.problems
+    return 0 if ok else 1
+
+
 def register(subparsers: Any) -> None:
     """Add the ``port`` parser and its ``check`` and ``copy`` sub-commands."""
     port = subparsers.add_parser(
@@ -141,3 +182,23 @@ def register(subparsers: Any) -> None:
     from .copy import register_copy
 
     register_copy(sub)
+    v = sub.add_parser(
+        "verify", help="judge a results file written by a port anywhere, as check does",
+        description="Read an airdata-results file (docs/exchange.md) written by an "
+                    "implementation under test from the cases of 'airdata vectors export', "
+                    "and judge it exactly as 'port check' judges a port, with the same "
+                    "table. Missing, duplicate, unknown or malformed lines and a truncated "
+                    "file are listed with line numbers and fail the verdict. Exit status 0: "
+                    "all pass; 1: some case failed or the file has problems; 2: the "
+                    "verification could not run.",
+        epilog=_CAUTION)
+    v.add_argument("results", metavar="RESULTS", help="the results file")
+    v.add_argument("--suite", default=None, metavar="DIR",
+                   help="vector suite directory (default: the installed icao suite)")
+    v.add_argument("--precision", choices=["double", "single"], default=None,
+                   help="precision of the port (default: the file's precision line, else "
+                        "double)")
+    v.add_argument("--only", nargs="+", metavar="FUNC",
+                   help="judge only these functions (the results of others are ignored)")
+    v.add_argument("--report", metavar="FILE.json", help="write a JSON report")
+    v.set_defaults(func=cmd_verify)

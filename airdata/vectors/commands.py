@@ -17,7 +17,7 @@ from .. import resources
 from ..profiles import PROFILES
 
 __all__ = ["register", "cmd_build", "cmd_verify", "cmd_diff", "cmd_path", "cmd_copy",
-           "located"]
+           "cmd_export", "located"]
 
 _CAUTION = ("An engineering and verification aid, not certified flight software; "
             "flight software follows its own certification basis.")
@@ -130,6 +130,24 @@ def cmd_diff(args: argparse.Namespace) -> int:
     return 0 if d.sufficient else 1
 
 
+def cmd_export(args: argparse.Namespace) -> int:
+    """``airdata vectors export``: 0 when written, 2 when the suite cannot be read."""
+    from pathlib import Path
+
+    from ..portcheck.suite import SuiteError
+    from .export import export_cases
+
+    try:
+        text, n = export_cases(args.suite, args.precision, args.only, args.format,
+                               args.numbers)
+    except (SuiteError, ValueError) as exc:
+        print(f"airdata vectors export: error: {exc}", file=sys.stderr)
+        return 2
+    Path(args.out).write_text(text, encoding="ascii", newline="\n")
+    print(f"exported {n} cases ({args.precision}, {args.format}) to {args.out}")
+    return 0
+
+
 def register(subparsers: Any) -> None:
     """Add the ``vectors`` parser and its sub-commands."""
     vec = subparsers.add_parser(
@@ -198,3 +216,20 @@ def register(subparsers: Any) -> None:
                     help="copy the headers of this suite directory instead")
     cp.add_argument("--force", action="store_true", help="overwrite existing files")
     cp.set_defaults(func=cmd_copy)
+    e = sub.add_parser("export", help="write every case as a flat text stream for any port",
+                       description="Write every valid and invalid case (id, function, "
+                                   "inputs as C99 hex floats of the chosen precision) as "
+                                   "an airdata-cases text file or CSV (docs/exchange.md). "
+                                   "Deterministic. Exit status 2 when the suite cannot be "
+                                   "read.", epilog=_CAUTION)
+    e.add_argument("--suite", default=None, metavar="DIR",
+                   help="vector suite directory (default: the installed icao suite)")
+    e.add_argument("--precision", choices=["double", "single"], default="double",
+                   help="binary64 (double, default) or binary32 (single) inputs")
+    e.add_argument("--only", nargs="+", metavar="FUNC", help="export only these functions")
+    e.add_argument("--format", choices=["lines", "csv"], default="lines",
+                   help="line format (default) or CSV")
+    e.add_argument("--numbers", choices=["hex", "decimal"], default="hex",
+                   help="number form of the line format (default hex; CSV has both)")
+    e.add_argument("-o", "--out", required=True, metavar="FILE", help="output file")
+    e.set_defaults(func=cmd_export)
