@@ -215,7 +215,7 @@ def _fmt(v: float, digits: int = 3) -> str:
 
 
 def _where(w: dict[str, str]) -> str:
-    return " ".join(f"{k}={v.replace(' ', '')}" for k, v in w.items())
+    return ", ".join(f"{k} = {v}" for k, v in w.items())
 
 
 def _function_lines(f: FunctionVerdict, level: str) -> list[str]:
@@ -273,7 +273,13 @@ def render_summary(reports: Sequence[Report], label: str, max_listed: int = 5) -
     for r in reports:
         lines.append(f"[{PRECISION_LABEL[r.precision]}]")
         for f in r.functions:
-            lines += _function_lines(f, r.level)
+            if f.implemented:
+                lines += _function_lines(f, r.level)
+        absent = [f.function for f in r.functions if not f.implemented]
+        if absent:
+            lines.append(f"not implemented (declared by the port; not judged, not failures): "
+                         f"{', '.join(absent)}")
+        for f in r.functions:
             if f.verdict == "fail":
                 failing.append(f"{f.function} ({PRECISION_LABEL[r.precision]})")
         lines.append("")

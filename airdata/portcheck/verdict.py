@@ -84,7 +84,8 @@ def eng_inputs(fc: FunctionCases, i: int) -> dict[str, str]:
             continue
         si = units.get(name, "")
         u = display(si)
-        out[name] = f"{to_unit(v, si, u):.6g} {u}".rstrip() if math.isfinite(v) else repr(v)
+        unit = "" if u in ("1", "") else f" {u}"
+        out[name] = f"{to_unit(v, si, u):.6g}{unit}" if math.isfinite(v) else repr(v)
     return out
 
 
