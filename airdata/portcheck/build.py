@@ -32,8 +32,8 @@ from typing import Any
 
 from .suite import FunctionCases
 
-__all__ = ["PortBuildError", "PortSpec", "Port", "bundled_port", "build_port", "shim_source",
-           "PRECISIONS"]
+__all__ = ["missing_symbols", "PortBuildError", "PortSpec", "Port", "bundled_port",
+           "build_port", "shim_source", "PRECISIONS"]
 
 #: Precision name -> whether ``AIRDATA_SINGLE`` is defined.
 PRECISIONS: dict[str, bool] = {"double": False, "single": True}
@@ -109,15 +109,19 @@ def _call(fc: FunctionCases) -> list[str]:
         args.append(f"(int)xi[{j}]" if kind == "flag" else f"(ad_real)xi[{j}]")
     lines = []
     if len(fc.outputs) == 1:
-        lines.append("        ad_real o = (ad_real)0;")
-        lines.append(f"        status[i] = (int){fc.c_function}({', '.join(args)}, &o);")
-        lines.append("        yi[0] = (double)o;")
-    else:
-        lines.append(f"        {fc.c_function}_t o;")
+        # A union wide enough for a binary64 value: a library built in the other
+        # precision writes garbage, not past the end of the variable.
+        lines.append("        union { ad_real v; double wide[2]; } o;")
         lines.append("        memset(&o, 0, sizeof o);")
-        lines.append(f"        status[i] = (int){fc.c_function}({', '.join(args)}, &o);")
+        lines.append(f"        status[i] = (int){fc.c_function}({', '.join(args)}, &o.v);")
+        lines.append("        yi[0] = (double)o.v;")
+    else:
+        wide = 2 * len(fc.outputs)
+        lines.append(f"        union {{ {fc.c_function}_t v; double wide[{wide}]; }} o;")
+        lines.append("        memset(&o, 0, sizeof o);")
+        lines.append(f"        status[i] = (int){fc.c_function}({', '.join(args)}, &o.v);")
         for j, out in enumerate(fc.outputs):
-            lines.append(f"        yi[{j}] = (double)o.{out};")
+            lines.append(f"        yi[{j}] = (double)o.v.{out};")
     return lines
 
 
@@ -204,6 +208,23 @@ class Port:
         shutil.rmtree(self.workdir, ignore_errors=True)
 
 
+def missing_symbols(library: Path) -> list[str]:
+    """Every undefined ``ad_*`` symbol of a built module (``nm``), sorted; empty when
+    ``nm`` is not available."""
+    import subprocess
+
+    nm = shutil.which("nm")
+    if nm is None:
+        return []
+    try:
+        out = subprocess.run([nm, "-D", "--undefined-only", str(library)], capture_output=True,
+                             text=True, timeout=60, check=False).stdout
+    except (OSError, subprocess.SubprocessError):
+        return []
+    names = {ln.split()[-1].split("@")[0] for ln in out.splitlines() if ln.strip()}
+    return sorted(n for n in names if n.startswith("ad_"))
+
+
 def build_port(spec: PortSpec, functions: Sequence[FunctionCases], precision: str,
                workdir: str | Path | None = None) -> Port:
     """Compile ``spec`` with loops for ``functions`` in ``precision`` and load it.
@@ -263,9 +284,12 @@ def build_port(spec: PortSpec, functions: Sequence[FunctionCases], precision: st
         msg = str(exc)
         hint = ""
         if "undefined symbol" in msg:
-            hint = (" (the port does not define "
-                    f"{msg.rsplit('undefined symbol:', 1)[-1].strip()}; use --only to check "
-                    "a subset of the functions)")
+            first = msg.rsplit('undefined symbol:', 1)[-1].strip()
+            wanted = {f.c_function for f in functions}
+            missing = [m for m in missing_symbols(Path(path)) if m in wanted] or [first]
+            hint = (f" (the port does not define {', '.join(missing)}: {len(missing)} "
+                    "missing function(s); declare what the port implements with "
+                    "--implements or --declaration, or use --only to check a subset)")
         raise PortBuildError(f"the port ({spec.label}, {precision}) failed to load{hint}",
                              msg) from None
     return Port(spec, precision, module, tuple(f.name for f in functions), tmp)

@@ -9,15 +9,18 @@ An engineering and verification aid, not certified flight software.
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 from pathlib import Path
 from typing import Any
 
+from ..vectors.catalogue import CATALOGUE
 from .build import PortBuildError, PortSpec, build_port, bundled_port
-from .compare import CheckResult, check_port
-from .report import render_text, report_dict
-from .suite import SuiteError, load_cases
+from .evidence import add_report_options, environment, render_summary, write_outputs
+from .requirements import RequirementsError, load_requirements
+from .suite import FunctionCases, LoadedSuite, SuiteError, load_cases
+from .verdict import PRECISION_LABEL, Report, judge
+
+_CATALOGUE_NAMES = {s.name for s in CATALOGUE}
 
 __all__ = ["register", "cmd_check", "cmd_verify"]
 
@@ -62,38 +65,124 @@ def _precisions(args: argparse.Namespace) -> list[str]:
     return [args.precision]
 
 
+def _declared(args: argparse.Namespace, suite_names: list[str]) -> list[str] | None:
+    """Functions the port declares it implements (--implements, --declaration), or None."""
+    names: list[str] = list(args.implements or [])
+    if args.declaration:
+        names += load_declaration(args.declaration)
+    if not names and not args.implements and not args.declaration:
+        return None
+    unknown = [n for n in names if n not in _CATALOGUE_NAMES]
+    if unknown:
+        raise ValueError(f"declared function(s) {', '.join(unknown)} are not airdata "
+                         "functions (use reference names, e.g. pressure_altitude)")
+    return [n for n in suite_names if n in names]
+
+
+def load_declaration(path: str | Path) -> list[str]:
+    """``implements = [...]`` of a port declaration file (TOML); errors name the key."""
+    import tomllib
+
+    p = Path(path)
+    try:
+        doc = tomllib.loads(p.read_text(encoding="utf-8"))
+    except (OSError, UnicodeDecodeError) as exc:
+        raise ValueError(f"{p}: cannot read the port declaration: {exc}") from None
+    except tomllib.TOMLDecodeError as exc:
+        raise ValueError(f"{p}: not valid TOML: {exc}") from None
+    extra = sorted(set(doc) - {"implements", "label", "note"})
+    if extra:
+        raise ValueError(f"{p}: unknown key {extra[0]!r} in the port declaration (known: "
+                         "implements, label, note)")
+    impl = doc.get("implements")
+    if not isinstance(impl, list) or not impl or not all(isinstance(n, str) for n in impl):
+        raise ValueError(f"{p}: key 'implements' must be a non-empty list of function names")
+    return [str(n) for n in impl]
+
+
+def _run(spec: PortSpec, functions: list[FunctionCases], precision: str
+         ) -> dict[str, tuple[Any, Any]]:
+    port = build_port(spec, functions, precision)
+    try:
+        return {fc.name: port.run(fc) for fc in functions}
+    finally:
+        port.close()
+
+
+def _failing_fraction(suite: LoadedSuite, raw: dict[str, tuple[Any, Any]],
+                      precision: str) -> float:
+    rep = judge(suite, raw, precision)
+    total = sum(f.in_envelope for f in rep.functions if f.implemented)
+    bad = sum(f.failed for f in rep.functions if f.implemented)
+    return bad / total if total else 0.0
+
+
+def _precision_mismatch(spec: PortSpec, suite: LoadedSuite, functions: list[FunctionCases],
+                        precision: str, raw: dict[str, tuple[Any, Any]]) -> str | None:
+    """A library built in the other precision: most cases fail here and pass there."""
+    if spec.library is None or not functions:
+        return None
+    here = _failing_fraction(suite, raw, precision)
+    if here < 0.5:
+        return None
+    other = "double" if precision == "single" else "single"
+    try:
+        there = _failing_fraction(suite, _run(spec, functions, other), other)
+    except PortBuildError:
+        return None
+    if there > 0.1:
+        return None
+    return (f"the library {spec.library} looks built in {PRECISION_LABEL[other]} "
+            f"(ad_real = {'float' if other == 'single' else 'double'}) but was checked as "
+            f"--precision {precision}: {here:.0%} of the cases fail as "
+            f"{PRECISION_LABEL[precision]}, {there:.0%} as {PRECISION_LABEL[other]}; "
+            f"rerun with --precision {other} (or rebuild the library"
+            f"{' with -DAIRDATA_SINGLE' if precision == 'single' else ' without AIRDATA_SINGLE'})")
+
+
 def cmd_check(args: argparse.Namespace) -> int:
-    """Run the check; print the table; write the report; return the exit status."""
+    """Run the check; print the summary; write the evidence files; return the exit status."""
     try:
         precisions = _precisions(args)
         suite = load_cases(args.suite, args.only or None, args.profile)
         if suite.profile == "us1976" and all(n != _US1976 for n, _ in args.define):
             args.define.append((_US1976, None))
         spec = _spec(args)
-    except (SuiteError, PortBuildError, ValueError) as exc:
+        declared = _declared(args, list(suite.functions))
+        req = load_requirements(args.requirements) if args.requirements else None
+    except (SuiteError, PortBuildError, RequirementsError, ValueError) as exc:
         print(f"airdata port check: error: {exc}", file=sys.stderr)
         return 2
-    functions = list(suite.functions.values())
-    results: dict[str, list[CheckResult]] = {}
+    functions = [fc for fc in suite.functions.values()
+                 if declared is None or fc.name in declared]
+    reports: list[Report] = []
+    env: dict[str, Any] = {}
     for precision in precisions:
         try:
-            port = build_port(spec, functions, precision)
+            raw = _run(spec, functions, precision) if functions else {}
+            mismatch = _precision_mismatch(spec, suite, functions, precision, raw)
         except PortBuildError as exc:
             print(f"airdata port check: error: {exc.what}", file=sys.stderr)
             if exc.output.strip():
                 print("compiler or loader output:\n" + exc.output.rstrip(), file=sys.stderr)
             return 2
-        try:
-            results[precision] = check_port(port, suite)
-        finally:
-            port.close()
-    print(render_text(suite, spec.label, results))
-    if args.report:
-        doc: dict[str, Any] = report_dict(suite, spec.label, [str(s) for s in spec.sources],
-                                          results)
-        Path(args.report).write_text(json.dumps(doc, indent=1) + "\n")
-        print(f"report written to {args.report}")
-    return 0 if all(r.ok for rows in results.values() for r in rows) else 1
+        if mismatch:
+            print(f"airdata port check: error: {mismatch}", file=sys.stderr)
+            return 2
+        reports.append(judge(suite, raw, precision, req))
+        env = environment(spec, precision)
+    print(render_summary(reports, spec.label))
+    try:
+        for line in write_outputs(args, reports, env):
+            print(line)
+    except ImportError as exc:
+        print(f"airdata port check: error: --plot needs matplotlib ({exc}); "
+              "pip install airdata[plot]", file=sys.stderr)
+        return 2
+    except OSError as exc:
+        print(f"airdata port check: error: cannot write a report: {exc}", file=sys.stderr)
+        return 2
+    return 0 if all(r.ok for r in reports) else 1
 
 
 def cmd_verify(args: argparse.Namespace) -> int:
@@ -175,9 +264,14 @@ def register(subparsers: Any) -> None:
                         "searched last")
     c.add_argument("--define", action="append", default=[], type=_define,
                    metavar="NAME[=V]", help="preprocessor definition (repeatable)")
-    c.add_argument("--report", metavar="FILE.json", help="write a JSON report")
     c.add_argument("--only", nargs="+", metavar="FUNC",
                    help="check only these functions (reference names, e.g. pressure_altitude)")
+    c.add_argument("--implements", nargs="+", metavar="FUNC",
+                   help="the functions the port implements; the others are reported 'not "
+                        "implemented' (not failures)")
+    c.add_argument("--declaration", metavar="FILE.toml",
+                   help="a port declaration file: implements = [\"pressure_altitude\", ...]")
+    add_report_options(c)
     c.set_defaults(func=cmd_check)
     from .copy import register_copy
 

@@ -60,6 +60,8 @@ class FunctionCases:
         Expected status.
     b32 : ndarray of int, shape (n,)
         ``binary32_check`` as a code of :data:`B32_CODES`.
+    tags : list of tuple of str
+        Each case's tags (why it exists); empty when not known.
     """
 
     name: str
@@ -72,6 +74,7 @@ class FunctionCases:
     scale: NDArray[np.float64]
     status: NDArray[np.int64]
     b32: NDArray[np.int64]
+    tags: list[tuple[str, ...]] = field(default_factory=list)
 
     @property
     def count(self) -> int:
@@ -114,9 +117,11 @@ def _function_cases(rel: str, doc: dict[str, Any]) -> FunctionCases:
     status = np.empty(n, dtype=np.int64)
     b32 = np.empty(n, dtype=np.int64)
     ids = []
+    tags: list[tuple[str, ...]] = []
     for i, case in enumerate(cases):
         cid = str(case["id"])
         ids.append(cid)
+        tags.append(tuple(str(t) for t in case.get("tags", ())))
         where = f"{rel}: case {cid}"
         for j, (name, kind) in enumerate(inputs):
             v = case["inputs"][name]
@@ -127,7 +132,7 @@ def _function_cases(rel: str, doc: dict[str, Any]) -> FunctionCases:
         status[i] = int(case["status"])
         b32[i] = B32_CODES[case["binary32_check"]]
     return FunctionCases(str(doc["function"]), str(doc["c_function"]), inputs, outputs, ids,
-                         x, expected, scale, status, b32)
+                         x, expected, scale, status, b32, tags)
 
 
 def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None,
