@@ -192,12 +192,18 @@ def _same_unit(a: str, b: str) -> bool | None:
         return None
 
 
+#: Units of a time column accepted in a units row (time is not converted).
+TIME_UNITS = ("s", "ms", "us", "min", "h", "hh:mm:ss", "hh:mm:ss.sss", "utc", "iso 8601")
+
+
 def _is_units_row(cells: list[str]) -> bool:
     """Every non-empty cell a unit, and at least one a unit other than ``1`` or ``-``."""
     seen = False
     for cell in cells:
         text = _strip_brackets(cell)
         if not text:
+            continue
+        if text.lower() in TIME_UNITS:
             continue
         try:
             unit = u.normalize_unit(text)
@@ -364,6 +370,7 @@ class ChunkReader:
         self.chunk = chunk
         self.rows_read = 0
         self.comments = 0
+        self.unit_row: list[str] | None = None
         self.format = file_format(path)[0]
         self._arrow: Any = None
         self._src: _Text | None = None
@@ -420,6 +427,7 @@ class ChunkReader:
                     continue
                 if _is_units_row(row):
                     units = row
+                    self.unit_row = row
                     self.dialect.units_row = True
                 else:
                     self._pending.append(row)

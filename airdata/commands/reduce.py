@@ -754,6 +754,9 @@ def _run(args: argparse.Namespace) -> Summary:
         try:
             sink.header(header)
             width = plan.width
+            if reader.unit_row is not None and isinstance(sink, _CsvSink):
+                # keep the file's shape: a units row under the names row
+                sink.header((reader.unit_row + [""] * width)[:width] + units + ["", ""])
             for rows in reader.chunks():
                 if dialect.decimal == ",":
                     ch = reduce_chunk(_decimal_points(rows, plan), plan, args,
