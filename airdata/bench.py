@@ -57,10 +57,10 @@ SEED = 20_261_201
 SIZES: dict[str, dict[str, int]] = {
     "full": {"n": 1_000_000, "repeats": 5, "hist": 100_000, "fluids": 3_000,
              "brentq": 2_000, "chain_small": 1_000_000, "chain_large": 10_000_000,
-             "chunk": 100_000, "callgrind": 2_000},
+             "chunk": 100_000, "callgrind": 2_000, "reduce_rows": 500_000},
     "quick": {"n": 100_000, "repeats": 5, "hist": 20_000, "fluids": 300, "brentq": 300,
               "chain_small": 100_000, "chain_large": 1_000_000, "chunk": 50_000,
-              "callgrind": 500},
+              "callgrind": 500, "reduce_rows": 20_000},
 }
 
 #: Step counts tried for the solver histogram (the last one is taken as settled).
@@ -508,6 +508,40 @@ def _chunk_line(sz: dict[str, int]) -> dict[str, Any]:
                  large_wall_s=w_large, peak_from=a_large["peak_from"])
 
 
+def _reduce_lines(sz: dict[str, int]) -> list[dict[str, Any]]:
+    """Lines 9a/9b: ``airdata reduce`` (CSV and Parquet out) / pyarrow read + write."""
+    import pyarrow.csv as pacsv
+
+    demo = Path(__file__).resolve().parents[1] / "examples" / "demo_flight.csv"
+    if not demo.is_file():
+        raise FileNotFoundError(f"{demo} (the demo sortie) is not installed")
+    header, *body = demo.read_text(encoding="utf-8").splitlines()
+    n = sz["reduce_rows"]
+    with tempfile.TemporaryDirectory() as tmp:
+        src = Path(tmp) / "in.csv"
+        with open(src, "w", encoding="utf-8") as f:
+            f.write(header + "\n")
+            full, rest = divmod(n, len(body))
+            f.write(("\n".join(body) + "\n") * full)
+            f.write("\n".join(body[:rest]) + ("\n" if rest else ""))
+        t0 = time.perf_counter()
+        pacsv.write_csv(pacsv.read_csv(src), Path(tmp) / "floor.csv")
+        floor = time.perf_counter() - t0
+        lines = []
+        for key, ext in (("9a", ".csv"), ("9b", ".parquet")):
+            t0 = time.perf_counter()
+            subprocess.run([sys.executable, "-m", "airdata", "reduce", str(src), "-o",
+                            str(Path(tmp) / f"out{ext}"), "-q"], check=True,
+                           capture_output=True)
+            wall = time.perf_counter() - t0
+            lines.append(_line(key, f"reduce {n:.0e} rows CSV -> {ext[1:]} / pyarrow "
+                                    "CSV read + write", wall / floor, "x floor", "<=", 2.0,
+                               note=f"{wall:.2f} s vs {floor:.2f} s; "
+                                    f"{n / wall:,.0f} rows/s", rows=n, reduce_s=wall,
+                               floor_s=floor))
+    return lines
+
+
 # --------------------------------------------------------------------------- driver
 
 def _machine() -> dict[str, Any]:
@@ -589,6 +623,13 @@ def run_bench(quick: bool = False, progress: Callable[[str], None] | None = None
     say("line 8: chunked chain memory")
     lines += _guard("8", "chunked chain memory", "x", "<=", FLAT_LIMIT,
                     lambda: _chunk_line(sz))
+    say("line 9: reduce against pyarrow read + write")
+    got = _guard("9a", "reduce / pyarrow read + write", "x floor", "<=", 2.0,
+                 lambda: _reduce_lines(sz))
+    if len(got) == 1:
+        got.append(_missing("9b", "reduce to Parquet / pyarrow read + write", "x floor",
+                            "<=", 2.0, got[0]["note"][len("not measured: "):]))
+    lines += got
     machine["loadavg_end"] = list(os.getloadavg())
     return {"tool": "airdata bench", "version": _version(), "quick": quick, "seed": SEED,
             "sizes": dict(sz), "machine": machine, "lines": lines, "histogram": hist,

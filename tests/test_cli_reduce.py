@@ -21,6 +21,7 @@ import pytest
 
 import airdata
 from airdata import units as u
+from airdata.commands.reduce import RESOLUTION_DECIMALS
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "examples" / "demo_flight.csv"
@@ -74,7 +75,8 @@ def reference(ps: list[str], pt: list[str], tat: list[str], units: tuple[str, st
 @pytest.fixture(scope="module")
 def demo_reduced(tmp_path_factory: pytest.TempPathFactory) -> Path:
     out = tmp_path_factory.mktemp("demo") / "reduced.csv"
-    r = airdata_cmd("reduce", str(DEMO), "-o", str(out), "--si", "--setting", "1018hPa")
+    r = airdata_cmd("reduce", str(DEMO), "-o", str(out), "--si", "--setting", "1018hPa",
+                    "--exact")
     assert r.returncode == 0, r.stderr
     assert "rows" in r.stderr and str(out) in r.stderr
     return out
@@ -133,7 +135,11 @@ def test_demo_in_aviation_units_matches_si_run(demo_reduced: Path, tmp_path: Pat
         got = np.array([to_float(r[oh.index(name)]) for r in orows])
         want = np.asarray(u.from_si(np.array([to_float(r[sh.index(si_head)])
                                               for r in srows]), unit))
-        np.testing.assert_allclose(got, want, rtol=1e-13, atol=1e-9)
+        # default format: each value rounded to its unit's stated resolution
+        half = 0.5 * 10.0 ** -RESOLUTION_DECIMALS[unit]
+        np.testing.assert_allclose(got, want, rtol=1e-13, atol=half * (1 + 1e-9))
+        assert all(len(r[oh.index(name)].partition(".")[2]) <= RESOLUTION_DECIMALS[unit]
+                   for r in orows)
 
 
 def test_demo_generator_is_deterministic_and_matches_the_committed_file(
@@ -208,7 +214,7 @@ def test_text_empty_and_ragged_rows_become_status_rows_and_good_rows_survive(
     lines += [",".join(g) + ",fine" for g in GOOD[2:]]
     src = write(tmp_path / "in.csv", "\n".join(lines) + "\n")
     out = tmp_path / "out.csv"
-    r = airdata_cmd("reduce", str(src), "-o", str(out), "--si", "--json")
+    r = airdata_cmd("reduce", str(src), "-o", str(out), "--si", "--json", "--exact")
     assert r.returncode == 0, r.stderr
     summary = json.loads(r.stdout)
     assert summary["rows"] == 10

@@ -15,7 +15,11 @@ from numpy.typing import NDArray
 from .. import units as u
 from ..status import Status
 
-__all__ = ["PlotUnavailableError", "check_available", "Collector", "draw"]
+__all__ = ["PlotUnavailableError", "check_available", "check_extension", "Collector", "draw",
+           "PLOT_EXTENSIONS"]
+
+#: File extensions ``--plot`` can write.
+PLOT_EXTENSIONS = (".png", ".pdf", ".svg")
 
 _FIELDS = ("x", "hp", "hbaro", "cas", "eas", "tas", "mach", "sat", "tat", "status")
 
@@ -32,6 +36,18 @@ def check_available() -> None:
         raise PlotUnavailableError(
             "--plot needs matplotlib, which is not installed: pip install matplotlib "
             "(or run without --plot)") from None
+
+
+def check_extension(path: str) -> None:
+    """Raise ``ValueError`` naming the extensions that work when ``path`` has another one."""
+    import os
+    ext = os.path.splitext(path)[1].lower()
+    if ext not in PLOT_EXTENSIONS:
+        raise ValueError(f"--plot {path}: extension {ext or '(none)'!r} cannot be drawn; use "
+                         f"one of {', '.join(PLOT_EXTENSIONS)}")
+    folder = os.path.dirname(os.path.abspath(path))
+    if not os.path.isdir(folder):
+        raise ValueError(f"--plot {path}: folder {folder} does not exist")
 
 
 class Collector:

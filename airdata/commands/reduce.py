@@ -45,15 +45,18 @@ problem (unreadable file, missing column, wrong unit in the header), 2 a usage e
 from __future__ import annotations
 
 import argparse
+import bz2
 import csv
+import gzip
 import json
+import lzma
 import os
 import sys
 import time
 from collections.abc import Callable
 from dataclasses import dataclass, field
 from operator import itemgetter
-from typing import IO
+from typing import IO, Any
 
 import numpy as np
 from numpy.typing import NDArray
@@ -63,7 +66,15 @@ from ..chain import NOISE_BAND, AirData, air_data
 from ..profiles import get_profile
 from ..status import DomainError, Status
 from .compare import Comparison
-from .csvio import ChunkReader, Column, HeaderError, parse_numbers
+from .csvio import (
+    ChunkReader,
+    Column,
+    HeaderError,
+    delimiter_option,
+    file_format,
+    parse_numbers,
+    pyarrow_available,
+)
 from .progress import Progress
 from .quantities import (
     add_output_units,
@@ -155,6 +166,8 @@ class Summary:
     seconds: float = 0.0
     columns: list[str] = field(default_factory=list)
     comparison: Comparison | None = None
+    notes: list[str] = field(default_factory=list)
+    first_note: str = ""
 
     @property
     def bad(self) -> int:
@@ -203,11 +216,22 @@ def register(subparsers: argparse._SubParsersAction) -> None:
     p.add_argument("--prefix", default="", metavar="TEXT",
                    help="prefix of the output column names (to avoid clashes)")
     p.add_argument("--digits", type=int, default=None, metavar="N",
-                   help="significant digits of the outputs (default: full precision)")
+                   help="significant digits of the outputs (default: each quantity at its "
+                        "stated resolution, see Output format)")
+    p.add_argument("--exact", action="store_true",
+                   help="write the outputs in full binary64 precision (shortest form that "
+                        "reads back bit for bit)")
     p.add_argument("--chunk", type=int, default=20000, metavar="ROWS",
                    help="rows per chunk (default 20000)")
-    p.add_argument("--delimiter", default=",", metavar="CHAR",
-                   help="field separator (default ,)")
+    p.add_argument("--delimiter", default=None, metavar="CHAR",
+                   help="field separator: one character, or tab (also \\t); default: "
+                        "detected from the header line (, ; or tab)")
+    p.add_argument("--decimal", choices=("auto", ".", ","), default="auto",
+                   help="decimal sign of the number fields (default: detected; a decimal "
+                        "comma needs ; or tab as delimiter)")
+    p.add_argument("--encoding", default="auto", metavar="NAME",
+                   help="text encoding of a CSV input (default: UTF-8, read as Latin-1 when "
+                        "the start of the file is not UTF-8)")
     p.add_argument("--engine", choices=("reference", "cport"), default="reference",
                    help="what computes the outputs: the Python reference (default) or the "
                         "bundled C port (icao profile only)")
@@ -245,27 +269,38 @@ def _plan(reader: ChunkReader, args: argparse.Namespace) -> _Plan:
     given_units = dict(args.unit)
     by_name: dict[str, list[Column]] = {}
     for c in reader.columns:
-        by_name.setdefault(c.name, []).append(c)
+        by_name.setdefault(c.key, []).append(c)
     found = ", ".join(c.header for c in reader.columns)
     roles: dict[str, Column] = {}
     role_units: dict[str, str] = {}
     for role, dim, required in ROLES:
         name = wanted.get(role, role)
-        matches = by_name.get(name, [])
+        matches = by_name.get(name.casefold(), [])
         if not matches and role in wanted:
             # --col may name the full header cell, unit included
-            matches = [c for c in reader.columns if c.header.strip() == name]
+            matches = [c for c in reader.columns
+                       if c.header.strip().casefold() == name.casefold()]
         if not matches:
             if required:
                 raise HeaderError(f"no column {name!r} ({_role_words(role)}) in the header; "
-                                  f"columns found: {found}")
+                                  f"columns found: {found} (fields read as separated by "
+                                  f"{_delimiter_words(reader.dialect.delimiter)}; give "
+                                  "--delimiter or --col ROLE=HEADER if that is wrong)")
             continue
         if len(matches) > 1:
             raise HeaderError(f"{len(matches)} columns named {name!r}: "
                               + ", ".join(c.header for c in matches))
         col = matches[0]
         unit = given_units.get(role) or col.unit
-        if col.unit and role in given_units and given_units[role] != col.unit:
+        if unit is not None and dim is not None:
+            try:
+                unit = u.normalize_unit(unit)
+            except ValueError:
+                raise HeaderError(
+                    f"column {col.header!r}: unknown unit {unit!r}; units of {dim}: "
+                    f"{', '.join(u.units_of(dim))} (also spellings such as mb, C, F, kts)"
+                ) from None
+        if col.unit and role in given_units and not _same(given_units[role], col.unit):
             raise HeaderError(f"column {col.header!r} says unit {col.unit!r} but --unit gives "
                               f"{given_units[role]!r}")
         if dim is not None:
@@ -303,6 +338,17 @@ def _plan(reader: ChunkReader, args: argparse.Namespace) -> _Plan:
         raise HeaderError(f"output column(s) {', '.join(sorted(clash))} already in the input; "
                           "give --prefix, e.g. --prefix ref_")
     return _Plan(roles, role_units, outputs, len(reader.header))
+
+
+def _delimiter_words(d: str) -> str:
+    return {",": "commas", ";": "semicolons", "\t": "tabs"}.get(d, repr(d))
+
+
+def _same(a: str, b: str) -> bool:
+    try:
+        return u.normalize_unit(a) == u.normalize_unit(b)
+    except ValueError:
+        return a == b
 
 
 def _role_words(role: str) -> str:
@@ -423,11 +469,141 @@ def _domain_note(ps: float, pt: float, tat: float, recovery: float, setting: flo
     return "rejected by the air-data chain"  # pragma: no cover - status and strict agree
 
 
-def _formatter(digits: int | None) -> Callable[[list[float]], list[object]]:
-    if digits is None:
-        return lambda vals: ["" if v != v else v for v in vals]
-    fmt = f"{{:.{digits}g}}"
-    return lambda vals: ["" if v != v else fmt.format(v) for v in vals]
+#: Decimals written per output unit by default: the stated resolution of each quantity
+#: (about 1 mm of altitude, 0.001 kt, 0.01 Pa, 1 mK, 1e-5 of Mach, 1e-6 kg/m3), far
+#: below any sensor's resolution and far above the reference's rounding.
+RESOLUTION_DECIMALS = {
+    "ft": 3, "m": 4, "km": 7, "FL": 5,
+    "kt": 3, "m/s": 4, "km/h": 3, "mph": 3, "ft/min": 1,
+    "Pa": 2, "hPa": 4, "mbar": 4, "kPa": 5, "inHg": 6, "psi": 7,
+    "K": 3, "degC": 3, "degF": 3, "1": 5, "kg/m3": 6,
+}
+
+
+def round_outputs(values: NDArray[np.float64], units: list[str], digits: int | None,
+                  exact: bool) -> NDArray[np.float64]:
+    """The outputs as written: each column rounded to its unit's resolution.
+
+    ``exact`` keeps every bit; ``digits`` rounds to that many significant digits.  The
+    result is then written in its shortest round-trip decimal form (``21.18``, never
+    ``21.180000000000007``); ``-0.0`` is written ``0.0``.
+    """
+    if exact or values.size == 0:
+        return values
+    out = np.empty_like(values)
+    for j, unit in enumerate(units):
+        col = values[:, j]
+        if digits is None:
+            out[:, j] = np.round(col, RESOLUTION_DECIMALS.get(unit, 6)) + 0.0
+        else:
+            with np.errstate(divide="ignore", invalid="ignore"):
+                mag = np.floor(np.log10(np.abs(col)))
+            mag = np.where(np.isfinite(mag), mag, 0.0)
+            scale = 10.0 ** (digits - 1 - mag)
+            out[:, j] = np.round(col * scale) / scale + 0.0
+    return out
+
+
+class _CsvSink:
+    """Writes the reduced rows as CSV text (optionally compressed)."""
+
+    def __init__(self, path: str, delimiter: str, decimal: str,
+                 digits: int | None = None) -> None:
+        self.path = path
+        self.digits = digits
+        self.tmp: str | None = None
+        if path == "-":
+            self.stream: IO[str] = sys.stdout
+        else:
+            self.tmp = f"{path}.partial"
+            compression = file_format(path)[1]
+            opener: Callable[..., IO[str]] = {
+                None: open, "gzip": gzip.open, "bz2": bz2.open, "xz": lzma.open,
+            }[compression]
+            self.stream = opener(self.tmp, "wt", encoding="utf-8", newline="")
+        self.writer = csv.writer(self.stream, lineterminator="\n", delimiter=delimiter)
+        self.comma = decimal == ","
+
+    def header(self, header: list[str]) -> None:
+        self.writer.writerow(header)
+
+    def write(self, rows: list[list[str]], values: NDArray[np.float64], names: list[str],
+              notes: list[str]) -> None:
+        vals: list[list[Any]] = values.tolist()
+        nan_rows = np.flatnonzero(np.isnan(values).any(axis=1)) if values.size else []
+        for i in nan_rows:
+            vals[i] = ["" if v != v else v for v in vals[i]]
+        if self.digits is not None:
+            fmt = f"{{:.{self.digits}g}}"
+            vals = [[fmt.format(v) if isinstance(v, float) else v for v in r] for r in vals]
+        if self.comma:
+            vals = [[(repr(v) if isinstance(v, float) else v).replace(".", ",") for v in r]
+                    for r in vals]
+        self.writer.writerows([row + v + [st, note] for row, v, st, note
+                               in zip(rows, vals, names, notes, strict=True)])
+
+    def finish(self) -> None:
+        if self.tmp is not None:
+            self.stream.close()
+            os.replace(self.tmp, self.path)
+        else:
+            self.stream.flush()
+
+    def abort(self) -> None:
+        if self.tmp is not None:
+            self.stream.close()
+            os.unlink(self.tmp)
+
+
+class _ArrowSink:
+    """Writes the reduced rows as Parquet or Arrow IPC (input columns as their text)."""
+
+    def __init__(self, path: str, fmt: str, width: int) -> None:
+        import pyarrow as pa
+        self.pa = pa
+        self.path = path
+        self.fmt = fmt
+        self.tmp = f"{path}.partial"
+        self.width = width
+        self.writer: Any = None
+        self.schema: Any = None
+
+    def header(self, header: list[str]) -> None:
+        pa = self.pa
+        w = self.width
+        fields = [pa.field(h, pa.string()) for h in header[:w]]
+        fields += [pa.field(h, pa.float64()) for h in header[w:-2]]
+        fields += [pa.field(h, pa.string()) for h in header[-2:]]
+        self.schema = pa.schema(fields)
+        if self.fmt == "parquet":
+            import pyarrow.parquet as pq
+            self.writer = pq.ParquetWriter(self.tmp, self.schema)
+        else:
+            import pyarrow.ipc
+            self.writer = pyarrow.ipc.new_file(self.tmp, self.schema)
+
+    def write(self, rows: list[list[str]], values: NDArray[np.float64], names: list[str],
+              notes: list[str]) -> None:
+        pa = self.pa
+        w = self.width
+        cols: list[Any] = [pa.array(list(c), pa.string()) for c in zip(*rows, strict=True)] \
+            if rows else [pa.array([], pa.string()) for _ in range(w)]
+        for j in range(values.shape[1]):
+            col = values[:, j]
+            cols.append(pa.array(col, pa.float64(), mask=np.isnan(col)))
+        cols.append(pa.array(names, pa.string()))
+        cols.append(pa.array(notes, pa.string()))
+        self.writer.write_batch(pa.RecordBatch.from_arrays(cols, schema=self.schema))
+
+    def finish(self) -> None:
+        self.writer.close()
+        os.replace(self.tmp, self.path)
+
+    def abort(self) -> None:
+        if self.writer is not None:
+            self.writer.close()
+        if os.path.exists(self.tmp):
+            os.unlink(self.tmp)
 
 
 # --------------------------------------------------------------------------- the run
@@ -439,8 +615,28 @@ def run(args: argparse.Namespace) -> int:
         parser.error("--chunk must be at least 1")
     if args.digits is not None and not 1 <= args.digits <= 17:
         parser.error("--digits must be in [1, 17]")
-    if len(args.delimiter) != 1:
-        parser.error("--delimiter must be one character")
+    if args.digits is not None and args.exact:
+        parser.error("--digits and --exact: choose one")
+    if args.delimiter is not None:
+        try:
+            args.delimiter = delimiter_option(args.delimiter)
+        except ValueError as exc:
+            parser.error(str(exc))
+    try:  # refuse what cannot be honoured before any work
+        out_format = file_format(args.output)[0]
+        in_format = file_format(args.input)[0]
+    except HeaderError as exc:
+        return fail(COMMAND, str(exc), 1)
+    if "arrow" in (out_format, in_format) or "parquet" in (out_format, in_format):
+        if not pyarrow_available():
+            return fail(COMMAND, "Parquet and Arrow files need pyarrow, which is not "
+                        "installed: pip install 'airdata[arrow]' (or use CSV)", 1)
+    if args.plot:
+        from .plotting import check_extension
+        try:
+            check_extension(args.plot)
+        except ValueError as exc:
+            return fail(COMMAND, str(exc), 1)
     if args.json and args.output == "-":
         parser.error("--json and -o - both write to standard output: choose one")
     if not 0.0 <= args.recovery <= 1.0:
@@ -496,12 +692,18 @@ def run(args: argparse.Namespace) -> int:
         counts = ", ".join(f"{n} {name}" for name, n in summary.counts.items() if n)
         print(f"airdata reduce: {summary.rows} rows ({counts or 'none'}) in "
               f"{summary.seconds:.2f} s, {rate:,.0f} rows/s -> {args.output}", file=sys.stderr)
+        for note in summary.notes:
+            print(f"airdata reduce: note: {note}", file=sys.stderr)
     if cmp is not None:
         if not args.quiet:
             _report_comparison(cmp)
         if cmp.disagreements:
             return fail(COMMAND, f"reference and C port ({args.precision}) disagree on "
                         f"{cmp.disagreeing_samples} of {cmp.samples} samples", 1)
+    if summary.rows and summary.bad == summary.rows:
+        return fail(COMMAND, f"every one of the {summary.rows} rows was rejected; first "
+                    f"reason: {summary.first_note} (the output is written with each row's "
+                    "status; check the delimiter, decimal sign and units of the file)", 1)
     if args.fail_on_bad and summary.bad:
         return fail(COMMAND, f"{summary.bad} row(s) could not be reduced", 1)
     return 0
@@ -525,51 +727,52 @@ def _report_comparison(cmp: Comparison) -> None:
               file=sys.stderr)
 
 
-def _open_output(path: str) -> tuple[IO[str], str | None]:
-    if path == "-":
-        return sys.stdout, None
-    tmp = f"{path}.partial"
-    return open(tmp, "w", encoding="utf-8", newline=""), tmp
-
-
 def _run(args: argparse.Namespace) -> Summary:
     start = time.monotonic()
-    reader = ChunkReader(args.input, args.chunk, args.delimiter)
+    reader = ChunkReader(args.input, args.chunk, args.delimiter, args.decimal, args.encoding)
     try:
         plan = _plan(reader, args)
         header = list(reader.header) + [h for _, h, _ in plan.outputs] \
             + [f"{args.prefix}status", f"{args.prefix}note"]
         summary = Summary(columns=header)
+        dialect = reader.dialect
+        summary.notes.extend(dialect.notes)
         if args.compare:
             summary.comparison = Comparison(args.precision)
         collector = None
         if args.plot:
             from .plotting import Collector
             collector = Collector(PLOT_POINTS, plan, output_units(args))
-        fmt = _formatter(args.digits)
         progress = Progress(reader.size)
-        stream, tmp = _open_output(args.output)
+        out_format = file_format(args.output)[0]
+        sink: _CsvSink | _ArrowSink
+        if out_format == "csv":
+            sink = _CsvSink(args.output, dialect.delimiter, dialect.decimal, args.digits)
+        else:
+            sink = _ArrowSink(args.output, out_format, plan.width)
+        units = [unit for _, _, unit in plan.outputs]
         try:
-            writer = csv.writer(stream, lineterminator="\n", delimiter=args.delimiter)
-            writer.writerow(header)
+            sink.header(header)
             width = plan.width
+            if reader.unit_row is not None and isinstance(sink, _CsvSink):
+                # keep the file's shape: a units row under the names row
+                sink.header((reader.unit_row + [""] * width)[:width] + units + ["", ""])
             for rows in reader.chunks():
-                ch = reduce_chunk(rows, plan, args, summary.comparison, summary.rows + 1)
-                vals = ch.values.tolist()
-                nan_rows = np.flatnonzero(np.isnan(ch.values).any(axis=1)) \
-                    if ch.values.size else []
-                if args.digits is None:
-                    for i in nan_rows:
-                        vals[i] = fmt(vals[i])
+                if dialect.decimal == ",":
+                    ch = reduce_chunk(_decimal_points(rows, plan), plan, args,
+                                      summary.comparison, summary.rows + 1)
                 else:
-                    vals = [fmt(v) for v in vals]
+                    ch = reduce_chunk(rows, plan, args, summary.comparison, summary.rows + 1)
+                values = ch.values if out_format == "csv" and args.digits is not None \
+                    else round_outputs(ch.values, units, args.digits, args.exact)
                 names = [_STATUS_NAMES[s] for s in ch.status.tolist()]
                 for i in ch.ragged:  # keep the columns aligned; extra fields are in the note
                     rows[i] = (rows[i] + [""] * width)[:width]
-                writer.writerows([row + v + [st, note] for row, v, st, note
-                                  in zip(rows, vals, names, ch.notes, strict=True)])
+                sink.write(rows, values, names, ch.notes)
                 for s, n in zip(*np.unique(ch.status, return_counts=True), strict=True):
                     summary.counts[_STATUS_NAMES[int(s)]] += int(n)
+                if not summary.first_note:
+                    summary.first_note = next((nt for nt in ch.notes if nt), "")
                 summary.rows += len(rows)
                 if collector is not None:
                     collector.add(ch)
@@ -577,16 +780,12 @@ def _run(args: argparse.Namespace) -> Summary:
             progress.update(reader.position(), summary.rows, force=True)
         except BaseException:
             progress.close()
-            if tmp is not None:
-                stream.close()
-                os.unlink(tmp)
+            sink.abort()
             raise
         progress.close()
-        if tmp is not None:
-            stream.close()
-            os.replace(tmp, args.output)
-        else:
-            stream.flush()
+        sink.finish()
+        if reader.comments:
+            summary.notes.append(f"{reader.comments} comment line(s) starting with # skipped")
         if collector is not None:
             from .plotting import draw
             draw(collector, args.plot, title=f"airdata reduce {os.path.basename(args.input)}",
@@ -595,3 +794,16 @@ def _run(args: argparse.Namespace) -> Summary:
         reader.close()
     summary.seconds = time.monotonic() - start
     return summary
+
+
+def _decimal_points(rows: list[list[str]], plan: _Plan) -> list[list[str]]:
+    """Rows whose quantity fields have the decimal comma replaced by a point (a copy)."""
+    idx = [c.index for c in plan.roles.values()]
+    out = []
+    for row in rows:
+        r = list(row)
+        for i in idx:
+            if i < len(r):
+                r[i] = r[i].replace(",", ".")
+        out.append(r)
+    return out
