@@ -127,3 +127,6 @@ def register(subparsers: Any) -> None:
     c.add_argument("--only", nargs="+", metavar="FUNC",
                    help="check only these functions (reference names, e.g. pressure_altitude)")
     c.set_defaults(func=cmd_check)
+    from .coverage import add_parser as _add_coverage
+
+    _add_coverage(sub, _define, _CAUTION)
