@@ -296,3 +296,6 @@ def register(subparsers: Any) -> None:
                    help="judge only these functions (the results of others are ignored)")
     v.add_argument("--report", metavar="FILE.json", help="write a JSON report")
     v.set_defaults(func=cmd_verify)
+    from .coverage import add_parser as _add_coverage
+
+    _add_coverage(sub, _define, _CAUTION)
