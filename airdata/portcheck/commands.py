@@ -187,7 +187,7 @@ def cmd_check(args: argparse.Namespace) -> int:
 
 def cmd_verify(args: argparse.Namespace) -> int:
     """``port verify``: judge a results file as ``port check`` judges a port."""
-    from .results import ResultsError, judge_results, read_results
+    from .results import ResultsError, arrays, read_results
 
     try:
         suite = load_cases(args.suite, args.only or None)
@@ -209,21 +209,28 @@ def cmd_verify(args: argparse.Namespace) -> int:
         print(f"{args.results}: {p}")
     if len(parsed.problems) > 50:
         print(f"{args.results}: ... and {len(parsed.problems) - 50} more problem(s)")
-    results = {precision: judge_results(suite, parsed, precision)}
+    try:
+        req = load_requirements(args.requirements) if args.requirements else None
+    except RequirementsError as exc:
+        print(f"airdata port verify: error: {exc}", file=sys.stderr)
+        return 2
+    raw = {fc.name: arrays(fc, parsed)[:2] for fc in suite.functions.values()}
+    report = judge(suite, raw, precision, req)
     label = f"results file {args.results}"
-    print(render_text(suite, label, results))
+    print(render_summary([report], label))
     if parsed.problems:
         print(f"FAIL: {len(parsed.problems)} problem(s) in the results file (listed above)")
-    if args.report:
-        doc: dict[str, Any] = report_dict(suite, label, [str(args.results)], results)
-        doc["results_file"] = {"path": str(args.results),
-                               "problems": [str(p) for p in parsed.problems[:1000]],
-                               "problem_count": len(parsed.problems)}
-        doc["passed"] = bool(doc["passed"]) and not parsed.problems
-        Path(args.report).write_text(json.dumps(doc, indent=1) + "\n")
-        print(f"report written to {args.report}")
-    ok = all(r.ok for rows in results.values() for r in rows) and not parsed.problems
-    return 0 if ok else 1
+    env = environment()
+    env["results_file"] = {"path": str(args.results),
+                           "problems": [str(p) for p in parsed.problems[:1000]],
+                           "problem_count": len(parsed.problems)}
+    try:
+        for line in write_outputs(args, [report], env):
+            print(line)
+    except (ImportError, OSError) as exc:
+        print(f"airdata port verify: error: cannot write a report: {exc}", file=sys.stderr)
+        return 2
+    return 0 if report.ok and not parsed.problems else 1
 
 
 def register(subparsers: Any) -> None:
@@ -294,7 +301,7 @@ def register(subparsers: Any) -> None:
                         "double)")
     v.add_argument("--only", nargs="+", metavar="FUNC",
                    help="judge only these functions (the results of others are ignored)")
-    v.add_argument("--report", metavar="FILE.json", help="write a JSON report")
+    add_report_options(v)
     v.set_defaults(func=cmd_verify)
     from .coverage import add_parser as _add_coverage
 
