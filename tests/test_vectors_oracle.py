@@ -1,0 +1,138 @@
+"""Every case of the checked-in vector suite against the independent 50-digit oracle.
+
+The expected values of ``vectors/functions/*.json`` are the reference's own binary64
+outputs.  Here each valid case (status OK, and IMPACT_PRESSURE_ZEROED) is recomputed by
+``tests/oracle.py`` (mpmath at 50 digits, written from the published equations: U.S.
+Standard Atmosphere 1976, ICAO Doc 7488, NACA Report 1135 eqs. 44 and 100) and the
+stored expected value must lie within the case's own acceptance bound,
+``|y* - expected| <= k * eps * scale + 2**-1074`` (k and eps from the file's ``tolerance``, the
+stored scale).  Statuses are checked independently of the reference where the rule is
+mechanical: a NaN or infinite first input is INVALID_INPUT (the first bad input in
+argument order decides), a NaN or infinite input is never valid, a valid case has only finite
+inputs, and air_data reports IMPACT_PRESSURE_ZEROED exactly when
+-noise_band <= pt - ps < 0.  The worst case (fraction of its bound) is printed.
+"""
+
+from __future__ import annotations
+
+import json
+import math
+from pathlib import Path
+from typing import Any
+
+import pytest
+
+from airdata.vectors import jsonio
+from airdata.vectors.catalogue import CATALOGUE, get_spec
+
+try:  # tests/ as a package
+    from . import oracle
+except ImportError:  # tests/ on sys.path
+    import oracle
+
+SUITE = Path(__file__).resolve().parents[1] / "vectors"
+
+#: Cases of suite 1.0.0 whose expected value is beyond its bound against the oracle:
+#: subnormal inputs where the reference loses relative accuracy.  A known defect of the
+#: reference, being fixed with a rebuilt suite; the test asserts that exactly these
+#: fail (strict), so the set must be emptied when the fixed suite lands.
+KNOWN_DEFECTS: frozenset[str] = frozenset({
+    # mach_from_impact_pressure at qc = 5e-324 (and a few subnormal multiples): 0.0
+    # where the oracle gives ~1e-164
+    "45770dc2bd5c", "3856b6440cc2", "5bf15544e342", "fb3c5cdda089",
+    # cas_from_impact_pressure at subnormal qc: 0.0 where the oracle gives ~3e-162
+    "ccc6c07ab262", "fd23b8ad9d7a",
+    # cas_from_mach at a subnormal Mach number: 27..92 times the bound
+    "4b2261e76219", "819a4ffb8d8c",
+    # max_operating_cas with a subnormal Mach limit: the same conversion
+    "6ca26c96bcde", "0b8492ed4dbe",
+})
+
+OK, INVALID, ZEROED = 0, 1, 4
+SUBNORMAL_ULP = 2.0**-1074
+
+
+def _val(pair: Any) -> float:
+    return jsonio.decode_number(pair, "test")
+
+
+def _doc(name: str) -> dict[str, Any]:
+    return json.loads((SUITE / "functions" / f"{name}.json").read_text())
+
+
+def _reference(name: str, x: dict[str, Any]) -> dict[str, Any]:
+    """Oracle outputs by name for the case inputs ``x`` (decoded floats)."""
+    spec = get_spec(name)
+    fn = getattr(oracle, name)
+    if name == "air_data":
+        setting = x["setting"] if x["use_setting"] == 1 else None
+        return fn(x["ps"], x["pt"], x["tat"], x["recovery"], setting, "icao")
+    reals = [a.name for a in spec.args if a.kind == "real"]
+    y = fn(*(x[k] for k in reals))
+    return y if isinstance(y, dict) else {spec.outputs[0][0]: y}
+
+
+def check_function(name: str) -> tuple[list[str], tuple[float, str, str], int]:
+    """(ids of failing cases with the reason, worst (fraction, id, output), cases checked)."""
+    doc = _doc(name)
+    tol = doc["tolerance"]
+    k = float(tol["k"])
+    eps = _val(tol["eps_binary64"])
+    failures: list[str] = []
+    worst = (0.0, "", "")
+    checked = 0
+    for c in doc["cases"]:
+        x = {n: (v if n == "use_setting" else _val(v)) for n, v in c["inputs"].items()}
+        # air_data without a setting (use_setting 0) ignores the NaN setting.
+        reals = [v for n, v in x.items() if n != "use_setting"
+                 and not (n == "setting" and x.get("use_setting") == 0)]
+        finite = all(math.isfinite(v) for v in reals)
+        status = c["status"]
+        # Status rules independent of the reference.
+        if not finite and status in (OK, ZEROED):
+            failures.append(f"{c['id']}: non-finite input but status {status}")
+        # The first input in argument order decides; air_data is left out, its noise band
+        # (last in the file) is checked first (case cf0f73f98d52: NaN ps, noise band
+        # out of range, OUT_OF_RANGE).
+        if name != "air_data" and not math.isfinite(reals[0]) and status != INVALID:
+            failures.append(f"{c['id']}: first input non-finite but status {status}")
+        if status not in (OK, ZEROED):
+            checked += 1
+            continue
+        if name == "air_data":
+            d = x["pt"] - x["ps"]
+            want = ZEROED if -x["noise_band"] <= d < 0 else OK
+            if status != want:
+                failures.append(f"{c['id']}: status {status}, the oracle's rule gives {want}")
+        ystar = _reference(name, x)
+        for out, pair in c["expected"].items():
+            e = _val(pair)
+            if out not in ystar:
+                if not math.isnan(e):
+                    failures.append(f"{c['id']} {out}: expected {e!r}, no reference value")
+                continue
+            # Plus one subnormal spacing 2**-1074: an output below the normal range cannot
+            # be nearer its true value than that, whatever the scale.
+            bound = k * eps * _val(c["scale"][out]) + SUBNORMAL_ULP
+            err = abs(oracle.mp.mpf(e) - ystar[out]) if math.isfinite(e) else math.inf
+            frac = float(err / bound) if bound > 0 else (0.0 if err == 0 else math.inf)
+            if frac > worst[0]:
+                worst = (frac, c["id"], out)
+            if not frac <= 1.0:
+                failures.append(f"{c['id']} {out}: expected {e!r}, oracle "
+                                f"{oracle.mp.nstr(ystar[out], 20)}, {frac:.3g} x bound")
+        checked += 1
+    return failures, worst, checked
+
+
+@pytest.mark.parametrize("name", [s.name for s in CATALOGUE])
+def test_every_vector_case_against_the_oracle(name: str) -> None:
+    """Each case of the function file: value within its bound of the 50-digit oracle."""
+    failures, worst, checked = check_function(name)
+    n = len(_doc(name)["cases"])
+    assert checked == n > 0
+    print(f"{name}: {checked} cases, worst {worst[0]:.3g} of the bound at {worst[1]} "
+          f"{worst[2]}")
+    ids = {f.split(":")[0].split()[0] for f in failures}
+    known = {i for i in KNOWN_DEFECTS if i in {c["id"] for c in _doc(name)["cases"]}}
+    assert ids == known, "\n".join(failures) or f"known defects now pass: {sorted(known)}"
