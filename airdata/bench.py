@@ -5,7 +5,7 @@ alternately (best of N repeats, ``time.perf_counter``), because absolute times o
 shared machine drift while ratios measured side by side hold much better.  Instruction
 counts (valgrind's callgrind) are deterministic and need no repeats.
 
-Lines of the report (goals of issue 6):
+Lines of the report (with their goals):
 
 1. ``pressure_altitude`` against one ``np.exp(np.log(p))`` pass over the same array,
    the floor of a vectorised formula needing one logarithm and one exponential

@@ -25,7 +25,7 @@ temperatures, pressures and densities are derived here at 50 digits.  Inverses w
 closed form use it; the supersonic pitot inversion (no closed form) uses
 ``findroot`` with a bracketing solver at 60 digits.
 
-The module also holds the condition-scaled error of ../shared/conventions.md section 3
+The module also holds the condition-scaled error of docs/conventions.md section 3
 (:func:`reference_and_scale`, :func:`condition_scaled_error`).
 
 The oracle uses its own mpmath context ``mp`` so it never changes, or depends on, the

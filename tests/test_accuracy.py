@@ -1,7 +1,7 @@
 """Accuracy of every public function against the 50-digit mpmath oracle (tests/oracle.py).
 
 For each public function, each constants profile it depends on and each output, the
-condition-scaled error (../shared/conventions.md section 3) is measured over a
+condition-scaled error (docs/conventions.md section 3) is measured over a
 deterministic, seeded sample of its whole valid range and its largest value asserted
 <= 2.  The reference is mpmath evaluating the published equations (U.S. Standard
 Atmosphere 1976, ICAO Doc 7488, NACA Report 1135 eqs. 44 and 100, the National Weather

@@ -1,7 +1,7 @@
 """``airdata bench``: the report's structure, not its timings (no timed assertions).
 
 The quick benchmark is run once through the real command line (a subprocess, as a user
-runs it) and its JSON report is checked: every line of issue 6 is present with the goal
+runs it) and its JSON report is checked: every line is present with the goal
 the issue states, measured values are positive finite numbers, verdicts agree with the
 values, and the solver histogram accounts for every sampled point.
 """
@@ -22,7 +22,7 @@ import pytest
 import airdata.pitot as pitot
 from airdata import bench
 
-#: Lines of the report and the goal issue 6 sets for each (None: for information).
+#: Lines of the report and the goal set for each (None: for information).
 EXPECTED_GOALS: dict[str, tuple[str, float] | None] = {
     "1": ("<=", 2.0),      # pressure_altitude within 2x the exp(log(p)) floor
     "2": ("<=", 6.0),      # supersonic Mach within 6x the floor

@@ -5,7 +5,7 @@ Round trips
 
         K eps (|x| + |dg/dy y| + |dg/dp p|),      eps = 2**-52,  K = 4.
 
-    Justification: the project's accuracy goal (shared/conventions.md, section 3) is a
+    Justification: the project's accuracy goal (docs/conventions.md, section 3) is a
     condition-scaled error cse <= 2 for every function.  The forward call then errs by
     at most 2 eps (|y| + |f_x x| + |f_p p|) and the inverse by at most
     2 eps (|x| + |g_y y| + |g_p p|).  Carried through g (first order), the forward error

@@ -2,7 +2,7 @@
 """Print the accuracy table of airdata as markdown, for the README.
 
 For every public function, constants profile and output: the number of sample points,
-the largest condition-scaled error (../shared/conventions.md section 3) against the
+the largest condition-scaled error (docs/conventions.md section 3) against the
 50-digit mpmath oracle of tests/oracle.py, and the input where it occurs.  The samples
 are those of tests/test_accuracy.py (deterministic, seeded), so the figures printed
 with ``--points N`` are what ``AIRDATA_ACCURACY_POINTS=N pytest tests/test_accuracy.py``

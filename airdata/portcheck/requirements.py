@@ -4,7 +4,7 @@ A requirements file is TOML (format ``airdata-requirements-1``, described in
 docs/requirements.md)::
 
     format = "airdata-requirements-1"
-    title = "Air-data computer software requirements, issue 3"
+    title = "Air-data computer software requirements, revision 3"
 
     [function.pressure_altitude]
     envelope.ps = ["116 hPa", "1100 hPa"]      # inclusive, in any pressure unit

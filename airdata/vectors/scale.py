@@ -1,6 +1,6 @@
 """Tolerance basis of the vectors: the condition scale, and the binary32 check level.
 
-Condition scale (../shared/conventions.md, section 3), per case and output::
+Condition scale (docs/conventions.md, section 3), per case and output::
 
     scale = |y| + sum_i |df/dx_i * x_i|
 
