@@ -87,7 +87,7 @@ def test_command_exit_status_and_named_function(capsys: pytest.CaptureFixture[st
     assert "PASS: all 2 implemented function check(s) pass" in capsys.readouterr().out
     assert main([*base, "--define", "DEFECT_SHORT_SOLVER"]) == 1
     out = capsys.readouterr().out
-    assert "FAIL: 1 function check(s) failed: mach_from_impact_pressure (binary64)" in out, out[-1500:]
+    assert "FAIL: 1 function check(s) failed: mach_from_impact_pressure (binary64)" in out
 
 
 def test_binary64_core_behind_a_float_interface_is_reported_at_range_ends(

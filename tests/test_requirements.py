@@ -4,8 +4,7 @@ from __future__ import annotations
 
 import pytest
 
-from airdata.portcheck.requirements import (RequirementsError, parse_requirements,
-                                            parse_tolerance)
+from airdata.portcheck.requirements import RequirementsError, parse_requirements, parse_tolerance
 
 HEAD = 'format = "airdata-requirements-1"\ntitle = "t"\n'
 
