@@ -69,8 +69,6 @@ HIST_STEPS = 6
 #: Growth of the chunked chain's peak resident set allowed for "flat" (line 8).
 FLAT_LIMIT = 1.05
 
-ROOT = Path(__file__).resolve().parent.parent
-C_DIR = ROOT / "bindings" / "c"
 
 
 # --------------------------------------------------------------------------- inputs
@@ -387,8 +385,12 @@ def _callgrind_lines(sz: dict[str, int]) -> list[dict[str, Any]]:
         work = Path(tmp)
         (work / "driver.c").write_text(_DRIVER)
         exe = work / "driver"
-        srcs = sorted(str(s) for s in (C_DIR / "src").glob("*.c"))
-        cmd = ["cc", "-std=c99", "-O2", f"-I{C_DIR / 'include'}", str(work / "driver.c"),
+        from . import resources
+
+        srcs = sorted(str(s) for s in resources.src_dir().glob("*.c"))
+        # -ffp-contract=off: the port's double-double arithmetic needs it (src/ad_dd.h).
+        cmd = ["cc", "-std=c99", "-O2", "-ffp-contract=off", f"-I{resources.include_dir()}",
+               str(work / "driver.c"),
                *srcs, "-o", str(exe), "-lm"]
         comp = subprocess.run(cmd, capture_output=True, text=True, timeout=300)
         if comp.returncode != 0:

@@ -205,6 +205,24 @@ def test_suite_size_and_counts(fresh: dict[str, bytes]) -> None:
         assert e["invalid"] >= 10, e["function"]
 
 
+def test_us1976_suite_is_fresh_and_verifies() -> None:
+    """Staleness of the second checked-in suite (vectors-us1976/): byte for byte what the
+    reference builds with the U.S. Standard Atmosphere 1976 constants."""
+    suite = ROOT / "vectors-us1976"
+    fresh_us = build.suite_files("us1976")
+    stale = [rel for rel, data in fresh_us.items()
+             if not (suite / rel).is_file() or (suite / rel).read_bytes() != data]
+    on_disk = {str(p.relative_to(suite)) for p in suite.rglob("*") if p.is_file()}
+    extra = on_disk - set(fresh_us)
+    assert not stale and not extra, (
+        f"vectors-us1976/ is stale (run `airdata vectors build --profile us1976`): changed "
+        f"{stale[:5]}, extra {sorted(extra)[:5]}")
+    m = json.loads(fresh_us["manifest.json"])
+    assert m["profile"]["name"] == "us1976"
+    # U.S. Standard Atmosphere 1976, R* = 8.31432 J/(mol K), M0 = 28.9644 g/mol (from memory)
+    assert math.isclose(m["profile"]["R"], 8314.32 / 28.9644, rel_tol=1e-12)
+
+
 def test_us1976_profile_builds_different_values() -> None:
     spec = get_spec("pressure_at_altitude")
     a = build.build_function(spec, airdata.ICAO)
@@ -495,7 +513,7 @@ def test_verify_cli_fails_with_message(tmp_path: Path) -> None:
     assert r.returncode == 1
     assert f"functions/pressure_altitude.json: case {cid}: status INVALID_INPUT" in r.stderr
     r = _cli("vectors", "verify", str(tmp_path / "nowhere"))
-    assert r.returncode == 1 and "not a directory" in r.stderr
+    assert r.returncode == 1 and "no such directory" in r.stderr
 
 
 # ------------------------------------------------------------------------------------

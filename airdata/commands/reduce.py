@@ -63,7 +63,6 @@ from numpy.typing import NDArray
 
 from .. import units as u
 from ..chain import NOISE_BAND, AirData, air_data
-from ..profiles import get_profile
 from ..status import DomainError, Status
 from .compare import Comparison
 from .csvio import (
@@ -234,7 +233,7 @@ def register(subparsers: argparse._SubParsersAction) -> None:
                         "the start of the file is not UTF-8)")
     p.add_argument("--engine", choices=("reference", "cport"), default="reference",
                    help="what computes the outputs: the Python reference (default) or the "
-                        "bundled C port (icao profile only)")
+                        "bundled C port, compiled for the --profile given")
     p.add_argument("--precision", choices=("double", "single"), default="double",
                    help="build of the C port for --engine cport and --compare: binary64 "
                         "(default) or binary32")
@@ -650,8 +649,6 @@ def run(args: argparse.Namespace) -> int:
             check_available()
         except PlotUnavailableError as exc:
             return fail(COMMAND, str(exc), 1)
-    if (args.engine == "cport" or args.compare) and get_profile(args.profile).name != "icao":
-        parser.error("the bundled C port is compiled with the icao profile only")
     if (args.engine == "cport" or args.compare):
         from .compare import available
         if not available():

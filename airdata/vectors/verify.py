@@ -140,7 +140,7 @@ def load_suite(root: str | Path, problems: list[Problem] | None = None,
     probs = [] if problems is None else problems
     rootp = Path(root)
     if not rootp.is_dir():
-        raise VectorFileError(rootp, "not a directory")
+        raise VectorFileError(rootp, "not a directory" if rootp.exists() else "no such directory")
     manifest = load_json(rootp / "manifest.json", max_bytes)
     suite = Suite(rootp, manifest)
     if not isinstance(manifest, dict):
