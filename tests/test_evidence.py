@@ -440,3 +440,15 @@ def test_plots_one_png_per_function_and_output(pass_run: Run) -> None:
         img = mpimg.imread(p)
         assert img.ndim == 3 and img.shape[0] > 100 and img.shape[1] > 100
         assert len(np.unique(img.reshape(-1, img.shape[2]), axis=0)) > 5
+
+
+# a fix found while writing these tests -------------------------------------------------------
+
+def test_exponent_sign_is_not_a_term_separator() -> None:
+    # Source of truth: TOML/C number syntax allows "1e+2"; 100 ft = 30.48 m exactly and
+    # 10 % = 0.1 (from memory).  The "+" of an exponent once split the text into terms.
+    from airdata.portcheck.requirements import parse_tolerance
+
+    assert parse_tolerance("1e+2 ft", "m").absolute == pytest.approx(30.48, rel=1e-15)
+    t = parse_tolerance("1E+1 % of reading + 2.5e+0 ft", "m")
+    assert t.relative == pytest.approx(0.1) and t.absolute == pytest.approx(0.762)

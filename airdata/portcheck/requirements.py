@@ -124,6 +124,8 @@ class Requirements:
 _NUM = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?"
 _PCT = re.compile(rf"^({_NUM})\s*%(?:\s*of\s+reading)?$")
 _ABS = re.compile(rf"^({_NUM})\s*(\S.*)?$")
+#: The "+" between two terms, not the sign of an exponent ("1e+2 ft").
+_PLUS = re.compile(r"(?<![0-9.][eE])\+")
 
 
 def _unit_dimension(unit: str) -> str | None:
@@ -172,7 +174,7 @@ def parse_tolerance(text: str, si_unit: str, where: str = "error") -> Tolerance:
     rel: float | None = None
     ab: float | None = None
     unit = si_unit
-    for term in (t.strip() for t in text.split("+")):
+    for term in (t.strip() for t in _PLUS.split(text)):
         m = _PCT.match(term)
         if m:
             if rel is not None:
