@@ -19,6 +19,7 @@ import shutil
 import subprocess
 import sys
 from dataclasses import dataclass
+from fractions import Fraction
 from html.parser import HTMLParser
 from pathlib import Path
 from typing import Any
@@ -452,3 +453,25 @@ def test_exponent_sign_is_not_a_term_separator() -> None:
     assert parse_tolerance("1e+2 ft", "m").absolute == pytest.approx(30.48, rel=1e-15)
     t = parse_tolerance("1E+1 % of reading + 2.5e+0 ft", "m")
     assert t.relative == pytest.approx(0.1) and t.absolute == pytest.approx(0.762)
+
+
+def test_envelope_limits_convert_exactly() -> None:
+    # Source of truth: 0 degC = 273.15 K, 1 ft = 0.3048 m, 1 kt = 1852/3600 m/s exactly (SI
+    # and international definitions, from memory); an inclusive limit must be the double
+    # nearest to the value written, or a case sitting on it is counted outside.
+    from airdata.portcheck.requirements import parse_requirements
+
+    req = parse_requirements('format = "airdata-requirements-1"\n'
+                             '[function.tas_from_mach]\n'
+                             'envelope.sat = ["-83.15 degC", "-56.5 degC"]\n'
+                             'error.tas = "0.2 kt"\n'
+                             '[function.pressure_at_altitude]\n'
+                             'envelope.h = ["-2000 ft", "36089.24 ft"]\n'
+                             'error.ps = "0.05 hPa"\n'
+                             '[function.impact_pressure_from_cas]\n'
+                             'envelope.cas = ["0.7 kt", "450 kt"]\n'
+                             'error.qc = "0.05 hPa"\n')
+    assert req.functions["tas_from_mach"].envelope["sat"] == (190.0, 216.65)
+    assert req.functions["pressure_at_altitude"].envelope["h"] == (-609.6, 11000.000352)
+    assert req.functions["impact_pressure_from_cas"].envelope["cas"] == \
+        (float(Fraction(7, 10) * Fraction(1852, 3600)), 231.5)
