@@ -29,6 +29,7 @@ import math
 import re
 import tomllib
 from dataclasses import dataclass, field
+from fractions import Fraction
 from pathlib import Path
 from typing import Any
 
@@ -124,6 +125,8 @@ class Requirements:
 _NUM = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?"
 _PCT = re.compile(rf"^({_NUM})\s*%(?:\s*of\s+reading)?$")
 _ABS = re.compile(rf"^({_NUM})\s*(\S.*)?$")
+#: The "+" between two terms, not the sign of an exponent ("1e+2 ft").
+_PLUS = re.compile(r"(?<![0-9.][eE])\+")
 
 
 def _unit_dimension(unit: str) -> str | None:
@@ -172,7 +175,7 @@ def parse_tolerance(text: str, si_unit: str, where: str = "error") -> Tolerance:
     rel: float | None = None
     ab: float | None = None
     unit = si_unit
-    for term in (t.strip() for t in text.split("+")):
+    for term in (t.strip() for t in _PLUS.split(text)):
         m = _PCT.match(term)
         if m:
             if rel is not None:
@@ -239,7 +242,13 @@ def _parse_limit(value: Any, si_unit: str, where: str) -> tuple[float, str]:
             raise RequirementsError(f"{where}: unit {_short(u)} is {why}; the input is in "
                                     f"{si_unit}: use one of {', '.join(_suggest(si_unit))}")
         num = float(m.group(1))
-        v = float(_units.to_si(num, u)) if (u != si_unit and _unit_dimension(u)) else num
+        if u != si_unit and _unit_dimension(u):
+            # exact (Fraction) conversion, rounded once: "-56.5 degC" is 216.65 K, the
+            # double nearest to the limit as written (inclusive comparisons depend on it)
+            _, scale, offset = _units.UNITS[u]
+            v = float(Fraction(m.group(1)) * scale + offset)
+        else:
+            v = num
         text = value.strip()
     else:
         raise RequirementsError(f"{where}: expected a number or \"NUMBER UNIT\", got "
