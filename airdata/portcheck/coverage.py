@@ -435,13 +435,14 @@ def tool_versions(tools: Toolchain) -> dict[str, str]:
 
 
 def _file_table(fig: Figures) -> list[str]:
-    rows = [f"  {'file':<24} " + " ".join(f"{KINDS[k]:>18}" for k in KINDS)]
+    w = max([24, *(len(n) for n in fig.per_file)])
+    rows = [f"  {'file':<{w}} " + " ".join(f"{KINDS[k]:>18}" for k in KINDS)]
     for name, kinds in sorted(fig.per_file.items()):
         cells = []
         for k in KINDS:
             c, n = kinds[k]
             cells.append(f"{(100.0 * c / n if n else 100.0):6.2f}% {f'{c}/{n}':>10}")
-        rows.append(f"  {name:<24} " + " ".join(f"{x:>18}" for x in cells))
+        rows.append(f"  {name:<{w}} " + " ".join(f"{x:>18}" for x in cells))
     return rows
 
 
