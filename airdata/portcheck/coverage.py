@@ -290,16 +290,20 @@ def batch_symbols(functions: Sequence[FunctionCases]) -> list[str]:
     return [*_BATCH_COMMON, *(f"{fc.c_function}_n" for fc in functions)]
 
 
-def _runner_outcome(returncode: int, stdout: str) -> list[str]:
-    """Notes on how the runner's run ended (its verdicts are not this tool's job)."""
+def _runner_outcome(returncode: int, stdout: str, names: Sequence[str]) -> list[str]:
+    """Notes on how the runner's run ended (its verdicts are not this tool's job).
+
+    ``names``: the functions run, in the runner's order (the suite's), which prints a
+    function's line after its cases and its NULL rule: a crash lies in the first
+    function without a line."""
     lines = [ln for ln in stdout.splitlines() if ln.strip()]
     notes = []
     fails = sum(1 for ln in lines if ln.lstrip().startswith("FAIL "))
     if returncode > 128:
-        last = next((ln.split()[0] for ln in reversed(lines)
-                     if not ln.startswith(" ") and " cases " in ln), "")
-        after = f" after function {last}" if last else " before the first function ended"
-        notes.append(f"INCOMPLETE: the runner stopped with signal {returncode - 128}{after}; "
+        done = {ln.split()[0] for ln in lines if not ln.startswith(" ") and " cases " in ln}
+        where = next((n for n in names if n not in done), "")
+        at = f" in function {where} (its cases or its NULL rule)" if where else ""
+        notes.append(f"INCOMPLETE: the runner stopped with signal {returncode - 128}{at}; "
                      "the functions after it were not run and are not measured (a port "
                      "writing through a NULL output pointer does this; use --only to "
                      "leave a function out)")
@@ -404,7 +408,7 @@ def coverage_of_sources(sources: Sequence[Path], suite_dir: str | Path = "vector
             raise CoverageError(f"the runner ({precision}) wrote no profile (exit status "
                                 f"{r.returncode}):\n{(r.stdout + r.stderr)[-2000:]}")
         notes += _runner_outcome(r.returncode if r.returncode >= 0 else 128 - r.returncode,
-                                 r.stdout)
+                                 r.stdout, [fc.name for fc in functions])
         prof = merge_profiles(tools, [raw], pdir / "run.profdata")
         fig = measure(tools, [exe], prof, sources)
         fig.notes = notes

@@ -1,10 +1,12 @@
 /*
  * A small user port for tests/test_port_coverage.py: dynamic pressure q = 0.7 ps M^2
- * (NACA Report 1135, q = gamma/2 ps M^2 with gamma = 1.4) behind airdata.h, with the
+ * (q = gamma/2 ps M^2, gamma = 1.4; NACA Report 1135, from memory) behind airdata.h, with the
  * argument rules of airdata.h written out (domain limits from the bundled
  * ad_constants.h).  One decision is deliberately out of reach of every vector: it
  * tests for a negative q after q = 0.7 ps M^2 has been formed from checked,
  * non-negative arguments.  `airdata port coverage` must list that line, and only it.
+ * With -DCOVERAGE_NO_NULL_GUARD the NULL-output rule of airdata.h is left out: the
+ * runner's NULL check then ends the run with SIGSEGV, which the report must say.
  *
  * An engineering and verification aid, not certified flight software.
  */
