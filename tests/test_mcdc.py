@@ -13,7 +13,9 @@ precision the figures are printed and what is missed is listed by file:line.
 
 MC/DC as defined for DO-178C (RTCA DO-178C, glossary; clang's -fcoverage-mcdc measures
 the unique-cause/masking form of the condition pairs, clang documentation "Source-based
-code coverage").  The same measurement for a user's own port: ``airdata port coverage``.
+code coverage").  The same measurement for a user's own port: ``airdata port coverage``
+(it links the same runner with the port; checked below to give this module's figures on
+the bundled port).
 
 A missing clang 19 skips with the packages to install; with AIRDATA_REQUIRE_TOOLCHAINS=1
 (set by .ci/run) it fails instead.
@@ -21,6 +23,7 @@ A missing clang 19 skips with the packages to install; with AIRDATA_REQUIRE_TOOL
 
 from __future__ import annotations
 
+import json
 import os
 import re
 import shutil
@@ -176,6 +179,97 @@ NOT_REACHED = {
 }
 
 
+#: binary32 inputs outside the suite that reach what NOT_REACHED["binary32"] lists (the
+#: inputs named there); each call's place and condition in the comment.
+_REACH32 = r"""
+#include "airdata.h"
+int main(void)
+{
+    ad_real v;
+    ad_air_data_t o;
+    int bad = 0;
+    bad += ad_stall_eas(600000.0f, 120.0f, 2.4f, 1.0f, &v) != AD_OK;  /* 86: all normal */
+    bad += ad_stall_eas(1e-40f, 120.0f, 2.4f, 1.0f, &v) != AD_OK;     /* 86: num */
+    (void)ad_stall_eas(1e3f, 1e-40f, 1.0f, 1.0f, &v);                 /* 86: den */
+    bad += ad_stall_eas(1e-36f, 1000.0f, 10.0f, 1.0f, &v) != AD_OK;   /* 86: quotient */
+    bad += ad_air_data(100000.0f, 130000.0f, 288.15f, 1.0f, 101325.0f, 0, 100.0f, &o)
+           != AD_OK;                                                  /* chain 68: neither */
+    bad += ad_air_data(150000.0f, 13170000.0f, 288.15f, 1.0f, 101325.0f, 0, 100.0f, &o)
+           != AD_OUT_OF_RANGE;                                        /* 68: q/p0 alone */
+    bad += ad_air_data(20000.0f, 13020000.0f, 288.15f, 1.0f, 101325.0f, 0, 100.0f, &o)
+           != AD_OUT_OF_RANGE;                                        /* 68: q/ps */
+    bad += ad_max_operating_cas(25331.25f, 1e-16f, 1e-15f, &v) != AD_OK;   /* 260 */
+    bad += ad_max_operating_mach(25331.25f, 1e-16f, 1e-15f, &v) != AD_OK;  /* 275 */
+    return bad;
+}
+"""
+
+#: Sweep of the supersonic solver through ad_i_mach_from_ratio: the 2e6 representable
+#: qc/ps just above AD_RATIO_SONIC, then 2e6 spread geometrically to AD_RATIO_MAX.
+_SWEEP = r"""
+#include <math.h>
+#include "ad_internal.h"
+int main(void)
+{
+    volatile ad_real sink = 0;
+    ad_real x = AD_RATIO_SONIC;
+    long i;
+    for (i = 0; i < 2000000L; ++i) {
+#ifdef AIRDATA_SINGLE
+        x = nextafterf(x, 1e9f);
+#else
+        x = nextafter(x, 1e9);
+#endif
+        sink += ad_i_mach_from_ratio(x);
+    }
+    for (i = 1; i <= 2000000L; ++i) {
+        double t = (double)i / 2000000.0;
+        sink += ad_i_mach_from_ratio((ad_real)(AD_RATIO_SONIC
+                                               * pow(AD_RATIO_MAX / AD_RATIO_SONIC, t)));
+    }
+    return sink > 0 ? 0 : 1;
+}
+"""
+
+
+def _harness(runs: dict, tmp: Path, name: str, text: str, extra: list[str]) -> Figures:
+    tools = runs["tools"]
+    src = tmp / f"{name}.c"
+    src.write_text(text)
+    exe = tmp / name
+    r = subprocess.run([tools.clang, *MCDC_FLAGS, *extra, f"-I{C_DIR / 'include'}",
+                        f"-I{C_DIR / 'src'}", str(src), *map(str, PORT), "-lm", "-o",
+                        str(exe)], capture_output=True, text=True, timeout=600)
+    assert r.returncode == 0, r.stderr[-3000:]
+    raw = tmp / f"{name}.profraw"
+    run = subprocess.run([str(exe)], capture_output=True, text=True, timeout=600,
+                         env=dict(os.environ, LLVM_PROFILE_FILE=str(raw)))
+    assert run.returncode == 0, run.returncode
+    return measure(tools, [exe], merge_profiles(tools, [raw], tmp / f"{name}.profdata"), PORT)
+
+
+def test_binary32_reaches_what_the_vectors_miss_with_other_inputs(runs: dict,
+                                                                  tmp_path: Path) -> None:
+    # the binary32 reasons of NOT_REACHED say each place is reachable in binary32
+    fig = _harness(runs, tmp_path, "reach32", _REACH32, ["-DAIRDATA_SINGLE"])
+    wanted = {"chain.c:68:13": "MC/DC", "limits.c:86:9": "MC/DC",
+              "limits.c:260:18": "branch: condition never true",
+              "limits.c:275:19": "branch: condition never false"}
+    for place, kind in wanted.items():
+        assert not [m for m in fig.missed if m.startswith(place) and kind in m], place
+
+
+def test_binary64_never_clamps_in_the_supersonic_solver_sweep(runs: dict,
+                                                              tmp_path: Path) -> None:
+    # NOT_REACHED["binary64"]["pitot.c:54"]: the clamp is taken in binary32, not in
+    # binary64, over the same sweep
+    clamp = "pitot.c:54:12: branch: condition never true"
+    f64 = _harness(runs, tmp_path, "sweep64", _SWEEP, [])
+    f32 = _harness(runs, tmp_path, "sweep32", _SWEEP, ["-DAIRDATA_SINGLE"])
+    assert any(m.startswith(clamp) for m in f64.missed)
+    assert not any(m.startswith(clamp) for m in f32.missed)
+
+
 @pytest.mark.parametrize("precision", list(PRECISIONS))
 def test_per_precision_floors(runs: dict, precision: str) -> None:
     fig = runs[precision]
@@ -254,8 +348,38 @@ def test_port_coverage_lists_a_users_unexercised_condition(tmp_path: Path) -> No
     line = next(i for i, t in enumerate(_USER_PORT.splitlines(), 1) if "if (!(mach" in t)
     mcdc = [m for m in fig.missed if "MC/DC" in m]
     assert mcdc and all(m.startswith(f"my_tas.c:{line}:") for m in mcdc), fig.missed
-    # the NULL guard is never taken through the per-function loops: listed as a branch
+    # some of its cases fail (the sat/mach rule is not the reference's), and the runner
+    # hands a NULL output pointer only to a function whose cases all pass: the guard is
+    # listed as a branch never taken, and the notes say why
     assert any("tas == NULL" in m and "never true" in m for m in fig.missed)
+    assert any("NULL rule is applied only" in n for n in fig.notes), fig.notes
+
+
+def test_port_coverage_of_the_bundled_port_is_the_mcdc_measurement(runs: dict,
+                                                                     tmp_path: Path) -> None:
+    # `airdata port coverage` on the bundled port must report what this module measured
+    # with the runner: the same totals and the same missed items, per precision and
+    # together (read from the `runs` measurement, not typed here)
+    report = tmp_path / "cov.json"
+    env = dict(os.environ, PYTHONPATH=str(ROOT))
+    r = subprocess.run(["python3", "-m", "airdata", "port", "coverage", "--suite",
+                        str(ROOT / "vectors"), "--report", str(report)], capture_output=True,
+                       text=True, timeout=900, env=env, cwd=tmp_path)
+    print(r.stdout)
+    assert r.returncode == 0, r.stderr
+    doc = json.loads(report.read_text())["measurements"]
+    for ours, theirs in (("binary64", "double"), ("binary32", "single"), ("both", "both")):
+        fig = runs[ours]
+        got = doc[theirs]
+        assert {k: (v["covered"], v["count"]) for k, v in got["totals"].items()} == fig.totals
+        assert got["missed"] == fig.missed
+        assert {f: {k: (v["covered"], v["count"]) for k, v in kinds.items()}
+                for f, kinds in got["files"].items()} == fig.per_file
+    assert "scalar and batch entry points" in " ".join(doc["both"]["notes"])
+    both = runs["both"]
+    assert f"MC/DC conditions 100.00% ({both.totals['mcdc'][0]}/{both.totals['mcdc'][1]})" \
+        in r.stdout
+    assert "batch.c" in r.stdout and "not certified flight software" in r.stdout
 
 
 def test_port_coverage_command_on_the_bundled_port(tmp_path: Path) -> None:
