@@ -139,9 +139,11 @@ FLOOR = {"binary64": {"mcdc": 100.0, "branches": 99.8, "lines": 100.0, "regions"
 #: against the C at that line and the suite's cases (binary32 = the binary64 vector
 #: inputs rounded to float, as the runner converts them).  None is a property of the
 #: code: the binary32 ones are reachable with binary32 inputs the suite does not have
-#: (each such input shown, run once under clang 19 -fcoverage-mcdc: it covers the
-#: condition), so they are facts about the vectors' binary64 magnitudes.  The
-#: binary64 one was not reached by a sweep of 4e6 inputs.
+#: (the inputs named; test_binary32_reaches_what_the_vectors_miss_with_other_inputs runs
+#: them), so they are facts about the vectors' binary64 magnitudes.  The binary64 one
+#: is not reached by a sweep of 4e6 inputs that reaches it in binary32
+#: (test_binary64_never_clamps_in_the_supersonic_solver_sweep; the clamp counts per
+#: precision were taken with an instrumented copy of the solver).
 NOT_REACHED = {
     "binary64": {
         "pitot.c:54": "ad_at_least's clamp (x < lo) fires only when a Newton step of the "

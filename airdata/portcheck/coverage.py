@@ -244,7 +244,8 @@ def measure(tools: Toolchain, binaries: Sequence[Path], profdata: Path,
 #: Batch symbols the runner calls besides ``ad_<name>_n`` (airdata_batch.h).
 _BATCH_COMMON = ("ad_check_n",)
 
-#: C helper linked into the runner: stdout unbuffered (the runner's per-function lines
+#: C helper linked into the runner (host-side tooling, not port code, so a signal
+#: handler is fine here): stdout unbuffered (the runner's per-function lines
 #: survive a crash) and, on a fatal signal (a port writing through a NULL pointer, say),
 #: the coverage profile written before the process ends, so what ran is still measured.
 _GUARD_C = r"""
