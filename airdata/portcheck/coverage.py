@@ -12,9 +12,13 @@ not shown to affect their decision independently, branch directions never taken,
 and regions never executed.
 
 It measures coverage only; whether the outputs are right is ``airdata port check``'s job.
-The driver calls each function once per case, through the same per-function loops as
-``port check``; it does not call the batch entry points or the NULL-pointer rules (the
-project's own vector runner, ``bindings/c/runner/ad_vector_runner.c``, does).
+The driver is the project's vector runner, ``bindings/c/runner/ad_vector_runner.c``, linked
+with the port: every case through the scalar functions of ``airdata.h`` and their
+NULL-output rule and, when the port's sources define the batch API of ``airdata_batch.h``
+(the bundled port does; a port of ``airdata.h`` alone need not), every case again through
+the batch entry points, their NULL-array rule and ``ad_check_n``.  On the bundled port the
+figures are therefore those of ``tests/test_mcdc.py``.  The report gives the figures per
+source file as well, and the tool versions used.
 
 An engineering and verification aid, not certified flight software; MC/DC figures from
 this tool are evidence for a review, not a coverage analysis under a certification basis.
@@ -34,12 +38,13 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
-from .build import BUNDLED_C, PRECISIONS, PortBuildError, shim_source
+from .build import BUNDLED_C, PRECISIONS, PortBuildError
 from .suite import FunctionCases, SuiteError, load_cases
 
 __all__ = ["MCDC_FLAGS", "KINDS", "CoverageError", "Figures", "Toolchain", "find_toolchain",
-           "measure", "merge_profiles", "driver_source", "coverage_of_sources",
-           "add_parser", "cmd_coverage"]
+           "measure", "merge_profiles", "coverage_of_sources", "runner_path",
+           "defined_symbols", "batch_symbols", "tool_versions", "render", "add_parser",
+           "cmd_coverage"]
 
 #: Compile flags of an instrumented build (clang 19: MC/DC needs -fcoverage-mcdc).
 MCDC_FLAGS = ("-std=c99", "-O0", "-ffp-contract=off", "-fprofile-instr-generate",
@@ -59,29 +64,32 @@ class CoverageError(RuntimeError):
 
 @dataclass(frozen=True)
 class Toolchain:
-    """Paths of clang, llvm-profdata and llvm-cov (one LLVM release)."""
+    """Paths of clang, llvm-profdata, llvm-cov and llvm-nm (one LLVM release)."""
 
     clang: str
     profdata: str
     cov: str
+    nm: str = "llvm-nm"
 
 
 def find_toolchain(version: int = 19) -> Toolchain:
-    """Locate ``clang-<v>``, ``llvm-profdata-<v>`` and ``llvm-cov-<v>`` on PATH.
+    """Locate ``clang-<v>``, ``llvm-profdata-<v>``, ``llvm-cov-<v>`` and ``llvm-nm-<v>``
+    on PATH.
 
     Raises
     ------
     CoverageError
         Naming each missing tool and the Debian packages that provide it.
     """
-    names = (f"clang-{version}", f"llvm-profdata-{version}", f"llvm-cov-{version}")
+    names = (f"clang-{version}", f"llvm-profdata-{version}", f"llvm-cov-{version}",
+             f"llvm-nm-{version}")
     paths = [shutil.which(n) for n in names]
     missing = [n for n, p in zip(names, paths, strict=True) if p is None]
     if missing:
         raise CoverageError(f"{', '.join(missing)} not found on PATH (Debian packages: "
                             f"clang-{version} llvm-{version} libclang-rt-{version}-dev)")
-    clang, profdata, cov = (str(p) for p in paths)
-    return Toolchain(clang, profdata, cov)
+    clang, profdata, cov, nm = (str(p) for p in paths)
+    return Toolchain(clang, profdata, cov, nm)
 
 
 @dataclass
@@ -97,11 +105,14 @@ class Figures:
     missed : list of str
         What was not exercised, one ``file:line[:col]: ...`` item each, sorted by file
         and line.
+    notes : list of str
+        How the measurement was driven and how the run ended (an incomplete run says so).
     """
 
     totals: dict[str, tuple[int, int]] = field(default_factory=dict)
     per_file: dict[str, dict[str, tuple[int, int]]] = field(default_factory=dict)
     missed: list[str] = field(default_factory=list)
+    notes: list[str] = field(default_factory=list)
 
     def percent(self, kind: str) -> float:
         """Covered percentage of ``kind`` (100 when there is nothing to cover)."""
@@ -119,7 +130,7 @@ class Figures:
                            for k, (c, n) in self.totals.items()},
                 "files": {f: {k: {"covered": c, "count": n} for k, (c, n) in v.items()}
                           for f, v in self.per_file.items()},
-                "missed": list(self.missed)}
+                "missed": list(self.missed), "notes": list(self.notes)}
 
 
 def _run(cmd: Sequence[str], what: str, timeout: float = 600,
@@ -215,36 +226,94 @@ def measure(tools: Toolchain, binaries: Sequence[Path], profdata: Path,
     return fig
 
 
-# --- a user's port ---------------------------------------------------------------------
+# --- a port under the vector runner ------------------------------------------------------
+#
+# Design (why the runner, not a loop of our own): a port is measured by driving it with
+# bindings/c/runner/ad_vector_runner.c itself, the program tests/test_mcdc.py measures
+# the bundled port with.  Coverage then counts exactly what the vector suite exercises
+# through the interface it defines: every case through the scalar function of airdata.h,
+# the scalar NULL-output rule, and, when the port defines the batch API of
+# airdata_batch.h, every case again through ad_<name>_n, its NULL-array rule and
+# ad_check_n.  A port without the batch API (the common case: airdata.h only) builds the
+# runner with -DRUNNER_SCALAR_ONLY, so no batch code is expected of it and none is
+# charged to it.  The alternative, excluding files the scalar loops cannot reach, would
+# hide the bundled port's batch.c and its NULL guards instead of measuring them; the
+# per-file table of the report shows which of the user's files a run did not drive.
 
-def driver_source(functions: Sequence[FunctionCases]) -> str:
-    """C driver: for each function, read its cases' inputs (raw binary64, native byte
-    order) from ``<dir>/<name>.bin`` and run them through the ``adpc_<name>`` loop."""
-    loops, _ = shim_source(functions)
-    body = [loops, "#include <stdio.h>", "#include <stdlib.h>", "",
-            "static double *adcov_read(const char *dir, const char *name, size_t count)",
-            "{", "    char path[4096];", "    FILE *fp;", "    double *x;",
-            "    if (snprintf(path, sizeof path, \"%s/%s.bin\", dir, name) >= (int)sizeof path)"
-            " { return NULL; }",
-            "    fp = fopen(path, \"rb\");", "    if (fp == NULL) { return NULL; }",
-            "    x = (double *)malloc(count * sizeof(double) + 1u);",
-            "    if (x != NULL && fread(x, sizeof(double), count, fp) != count) {",
-            "        free(x);", "        x = NULL;", "    }", "    fclose(fp);",
-            "    return x;", "}", "", "int main(int argc, char **argv)", "{",
-            "    int bad = 0;", "    if (argc != 2) { return 2; }"]
-    for fc in functions:
-        nin, nout, n = len(fc.inputs), len(fc.outputs), fc.count
-        body += ["    {",
-                 f"        double *x = adcov_read(argv[1], \"{fc.name}\", {n * nin}u);",
-                 f"        double *y = (double *)malloc({n * nout}u * sizeof(double) + 1u);",
-                 f"        int *st = (int *)malloc({n}u * sizeof(int) + 1u);",
-                 "        if (x == NULL || y == NULL || st == NULL) {",
-                 f"            fprintf(stderr, \"{fc.name}: cannot read its cases\\n\");",
-                 "            bad = 1;", "        } else {",
-                 f"            adpc_{fc.name}(x, y, st, {n}u);", "        }",
-                 "        free(x);", "        free(y);", "        free(st);", "    }"]
-    body += ["    return bad;", "}", ""]
-    return "\n".join(body)
+
+#: Batch symbols the runner calls besides ``ad_<name>_n`` (airdata_batch.h).
+_BATCH_COMMON = ("ad_check_n",)
+
+#: C helper linked into the runner (host-side tooling, not port code, so a signal
+#: handler is fine here): stdout unbuffered (the runner's per-function lines
+#: survive a crash) and, on a fatal signal (a port writing through a NULL pointer, say),
+#: the coverage profile written before the process ends, so what ran is still measured.
+_GUARD_C = r"""
+#define _POSIX_C_SOURCE 200809L
+#include <signal.h>
+#include <stdio.h>
+#include <unistd.h>
+
+int __llvm_profile_write_file(void);
+
+static void adcov_on_signal(int sig)
+{
+    (void)__llvm_profile_write_file();
+    _exit(128 + sig);
+}
+
+__attribute__((constructor)) static void adcov_guard(void)
+{
+    (void)setvbuf(stdout, NULL, _IONBF, 0);
+    (void)signal(SIGSEGV, adcov_on_signal);
+    (void)signal(SIGBUS, adcov_on_signal);
+    (void)signal(SIGFPE, adcov_on_signal);
+    (void)signal(SIGILL, adcov_on_signal);
+    (void)signal(SIGABRT, adcov_on_signal);
+}
+"""
+
+
+def runner_path() -> Path:
+    """``runner/ad_vector_runner.c`` of the bundled C port."""
+    return BUNDLED_C / "runner" / "ad_vector_runner.c"
+
+
+def defined_symbols(tools: Toolchain, objects: Sequence[Path]) -> set[str]:
+    """External symbols defined by ``objects`` (``llvm-nm --defined-only``)."""
+    out = _run([tools.nm, "--defined-only", "--extern-only", "--format=just-symbols",
+                *map(str, objects)], "llvm-nm")
+    return {ln.strip() for ln in out.splitlines() if ln.strip() and not ln.endswith(":")}
+
+
+def batch_symbols(functions: Sequence[FunctionCases]) -> list[str]:
+    """Batch entry points the runner calls for ``functions`` (airdata_batch.h)."""
+    return [*_BATCH_COMMON, *(f"{fc.c_function}_n" for fc in functions)]
+
+
+def _runner_outcome(returncode: int, stdout: str, names: Sequence[str]) -> list[str]:
+    """Notes on how the runner's run ended (its verdicts are not this tool's job).
+
+    ``names``: the functions run, in the runner's order (the suite's), which prints a
+    function's line after its cases and its NULL rule: a crash lies in the first
+    function without a line."""
+    lines = [ln for ln in stdout.splitlines() if ln.strip()]
+    notes = []
+    fails = sum(1 for ln in lines if ln.lstrip().startswith("FAIL "))
+    if returncode > 128:
+        done = {ln.split()[0] for ln in lines if not ln.startswith(" ") and " cases " in ln}
+        where = next((n for n in names if n not in done), "")
+        at = f" in function {where} (its cases or its NULL rule)" if where else ""
+        notes.append(f"INCOMPLETE: the runner stopped with signal {returncode - 128}{at}; "
+                     "the functions after it were not run and are not measured (a port "
+                     "writing through a NULL output pointer does this; use --only to "
+                     "leave a function out)")
+    elif returncode != 0:
+        notes.append(f"the runner reported failures ({fails} FAIL line(s)); the NULL rule "
+                     "is applied only to a function whose cases all passed, so a failing "
+                     "function's NULL guards count as not exercised; see 'airdata port "
+                     "check'")
+    return notes
 
 
 def coverage_of_sources(sources: Sequence[Path], suite_dir: str | Path = "vectors",
@@ -253,8 +322,16 @@ def coverage_of_sources(sources: Sequence[Path], suite_dir: str | Path = "vector
                         defines: Sequence[tuple[str, str | None]] = (),
                         only: Sequence[str] | None = None,
                         workdir: Path | None = None,
-                        tools: Toolchain | None = None) -> dict[str, Figures]:
-    """Instrument ``sources``, run the suite's cases through them per precision, measure.
+                        tools: Toolchain | None = None,
+                        batch: bool | None = None) -> dict[str, Figures]:
+    """Instrument ``sources``, run the vector runner over them per precision, measure.
+
+    The port's sources are compiled with ``MCDC_FLAGS``; the runner
+    (``runner_path()``, with the suite's C headers ``<suite_dir>/c/ad_vectors.h``) is
+    linked with them uninstrumented, so only the port is measured.  ``only`` builds a
+    subset runner (``-DRUNNER_SUBSET -DRUNNER_WITH_<NAME>``).  ``batch``: drive the batch
+    entry points (True), do not (False, ``-DRUNNER_SCALAR_ONLY``), or (None) drive them
+    exactly when the sources define every one the runner calls (``llvm-nm``).
 
     Returns
     -------
@@ -272,18 +349,21 @@ def coverage_of_sources(sources: Sequence[Path], suite_dir: str | Path = "vector
             raise PortBuildError(f"C source {s} not found", "")
     suite = load_cases(suite_dir, only)
     functions = list(suite.functions.values())
+    headers = Path(suite_dir) / "c"
+    if not (headers / "ad_vectors.h").is_file():
+        raise CoverageError(f"{headers / 'ad_vectors.h'} not found: the runner needs the "
+                            "suite's C headers (written by 'airdata vectors build')")
+    runner = runner_path()
+    if not runner.is_file():
+        raise CoverageError(f"the vector runner {runner} is not in this installation")
     tmp = workdir or Path(tempfile.mkdtemp(prefix="adportcov-"))
     tmp.mkdir(parents=True, exist_ok=True)
-    cases = tmp / "cases"
-    cases.mkdir(exist_ok=True)
-    import numpy as np
-
-    for fc in functions:
-        np.ascontiguousarray(fc.x, dtype=np.float64).tofile(cases / f"{fc.name}.bin")
-    drv = tmp / "adcov_driver.c"
-    drv.write_text(driver_source(functions))
+    guard = tmp / "adcov_guard.c"
+    guard.write_text(_GUARD_C)
     inc = [f"-I{Path(p).resolve()}" for p in include_dirs] + [f"-I{BUNDLED_C / 'include'}"]
     dfs = [f"-D{k}" if v is None else f"-D{k}={v}" for k, v in defines]
+    subset = ([] if only is None else
+              ["-DRUNNER_SUBSET", *(f"-DRUNNER_WITH_{fc.name.upper()}" for fc in functions)])
     out: dict[str, Figures] = {}
     binaries, raws = [], []
     for precision in precisions:
@@ -297,31 +377,93 @@ def coverage_of_sources(sources: Sequence[Path], suite_dir: str | Path = "vector
             obj = pdir / f"{i:03d}_{Path(s).stem}.o"
             _run([tools.clang, *MCDC_FLAGS, *inc, *dfs, *single, "-c",
                   str(Path(s).resolve()), "-o", str(obj)], f"compiling {s} ({precision})")
-            objs.append(str(obj))
-        exe = pdir / "adcov_driver"
-        _run([tools.clang, "-std=c99", "-O0", "-fprofile-instr-generate", *inc, *dfs, *single,
-              str(drv), *objs, "-lm", "-o", str(exe)], f"linking the driver ({precision})")
+            objs.append(obj)
+        wanted = batch_symbols(functions)
+        missing = sorted(set(wanted) - defined_symbols(tools, objs))
+        drive_batch = not missing if batch is None else batch
+        notes = ["driver: the vector runner (" + runner.name + "), " +
+                 ("scalar and batch entry points, the NULL rules and ad_check_n"
+                  if drive_batch else "scalar entry points and the scalar NULL rule "
+                  "(-DRUNNER_SCALAR_ONLY)")]
+        if not drive_batch and len(missing) < len(wanted):
+            notes.append("batch API only partly defined, not driven (missing: "
+                         + ", ".join(missing[:8]) + (" ..." if len(missing) > 8 else "") + ")")
+        mode = [] if drive_batch else ["-DRUNNER_SCALAR_ONLY"]
+        robj = pdir / "runner.o"
+        _run([tools.clang, "-std=c99", "-O0", "-ffp-contract=off", *inc, f"-I{headers}", *dfs,
+              *single, *subset, *mode, "-c", str(runner), "-o", str(robj)],
+             f"compiling the vector runner ({precision})")
+        gobj = pdir / "guard.o"
+        _run([tools.clang, "-O0", "-c", str(guard), "-o", str(gobj)], "compiling the guard")
+        exe = pdir / "adcov_runner"
+        _run([tools.clang, "-fprofile-instr-generate", str(robj), str(gobj), *map(str, objs),
+              "-lm", "-o", str(exe)], f"linking the runner with the port ({precision})")
         raw = pdir / "run.profraw"
         env = dict(os.environ, LLVM_PROFILE_FILE=str(raw))
-        _run([str(exe), str(cases)], f"running the cases ({precision})", env=env)
+        try:
+            r = subprocess.run([str(exe)], capture_output=True, text=True, timeout=1800,
+                               env=env, cwd=pdir)
+        except subprocess.TimeoutExpired:
+            raise CoverageError(f"the runner ({precision}) did not finish in 1800 s") from None
+        if not raw.is_file():
+            raise CoverageError(f"the runner ({precision}) wrote no profile (exit status "
+                                f"{r.returncode}):\n{(r.stdout + r.stderr)[-2000:]}")
+        notes += _runner_outcome(r.returncode if r.returncode >= 0 else 128 - r.returncode,
+                                 r.stdout, [fc.name for fc in functions])
         prof = merge_profiles(tools, [raw], pdir / "run.profdata")
-        out[precision] = measure(tools, [exe], prof, sources)
+        fig = measure(tools, [exe], prof, sources)
+        fig.notes = notes
+        out[precision] = fig
         binaries.append(exe)
         raws.append(raw)
     if len(binaries) > 1:
         prof = merge_profiles(tools, raws, tmp / "both.profdata")
         out["both"] = measure(tools, binaries, prof, sources)
+        out["both"].notes = sorted({n for p in precisions for n in out[p].notes})
     if workdir is None:
         shutil.rmtree(tmp, ignore_errors=True)
     return out
 
 
-def render(label: str, figures: dict[str, Figures], max_missed: int = 200) -> str:
-    """Text report: figures per measurement, then what the combined run missed."""
-    rows = [f"airdata port coverage: {label} (clang 19, {' '.join(MCDC_FLAGS)})"]
+def tool_versions(tools: Toolchain) -> dict[str, str]:
+    """First line of ``--version`` of clang and llvm-cov (e.g. "Debian clang version
+    19.1.7"); "unknown" when a tool does not answer."""
+    got = {}
+    for name, exe in (("clang", tools.clang), ("llvm-cov", tools.cov)):
+        try:
+            text = _run([exe, "--version"], f"{name} --version", timeout=60)
+        except (CoverageError, OSError, subprocess.SubprocessError):
+            text = ""
+        first = next((ln.strip() for ln in text.splitlines() if "version" in ln), "unknown")
+        got[name] = first
+    return got
+
+
+def _file_table(fig: Figures) -> list[str]:
+    w = max([24, *(len(n) for n in fig.per_file)])
+    rows = [f"  {'file':<{w}} " + " ".join(f"{KINDS[k]:>18}" for k in KINDS)]
+    for name, kinds in sorted(fig.per_file.items()):
+        cells = []
+        for k in KINDS:
+            c, n = kinds[k]
+            cells.append(f"{(100.0 * c / n if n else 100.0):6.2f}% {f'{c}/{n}':>10}")
+        rows.append(f"  {name:<{w}} " + " ".join(f"{x:>18}" for x in cells))
+    return rows
+
+
+def render(label: str, figures: dict[str, Figures], max_missed: int = 200,
+           versions: dict[str, str] | None = None) -> str:
+    """Text report: tools, figures per measurement, per-file figures, then what the
+    combined run missed."""
+    rows = [f"airdata port coverage: {label}",
+            f"tools: {'; '.join(f'{k}: {v}' for k, v in (versions or {}).items()) or 'clang 19'}"
+            f"; flags: {' '.join(MCDC_FLAGS)}"]
     for key, fig in figures.items():
         rows.append(f"  {key:<7} {fig.summary()}")
     final = figures.get("both") or next(iter(figures.values()))
+    rows += [f"  note: {n}" for n in final.notes]
+    rows.append(f"per file ({'both' if 'both' in figures else next(iter(figures))}):")
+    rows += _file_table(final)
     for key, fig in figures.items():
         if fig.missed and (key == "both" or "both" not in figures):
             rows.append(f"not exercised by any vector ({key}): {len(fig.missed)} items")
@@ -336,7 +478,8 @@ def render(label: str, figures: dict[str, Figures], max_missed: int = 200) -> st
 
 
 def cmd_coverage(args: argparse.Namespace) -> int:
-    """Run ``airdata port coverage``; exit 0, 1 (below --fail-under) or 2 (cannot run)."""
+    """Run ``airdata port coverage``; exit 0, 1 (below --fail-under) or 2 (cannot run, or
+    the run stopped before its end)."""
     if args.source:
         sources = [Path(s) for s in args.source]
         label = " ".join(args.source)
@@ -346,21 +489,31 @@ def cmd_coverage(args: argparse.Namespace) -> int:
         label = "bundled"
         includes = [Path(p) for p in args.include] + [BUNDLED_C / "src"]
     precisions = ["double", "single"] if args.precision == "both" else [args.precision]
+    batch = {"auto": None, "yes": True, "no": False}[args.batch]
     try:
+        tools = find_toolchain()
         figures = coverage_of_sources(sources, args.suite, precisions, includes,
-                                      list(args.define), args.only or None)
+                                      list(args.define), args.only or None, tools=tools,
+                                      batch=batch)
     except (CoverageError, SuiteError, PortBuildError, ValueError) as exc:
         print(f"airdata port coverage: error: {exc}", file=sys.stderr)
         return 2
-    print(render(label, figures))
+    versions = tool_versions(tools)
+    print(render(label, figures, versions=versions))
     final = figures.get("both") or figures[precisions[0]]
     if args.report:
         doc = {"tool": "airdata port coverage", "label": label,
-               "sources": [str(s) for s in sources], "flags": list(MCDC_FLAGS),
-               "suite": str(args.suite),
+               "disclaimer": "An engineering and verification aid, not certified flight "
+                             "software; coverage figures are evidence for a review.",
+               "tool_versions": versions, "sources": [str(s) for s in sources],
+               "flags": list(MCDC_FLAGS), "suite": str(args.suite),
                "measurements": {k: f.as_dict() for k, f in figures.items()}}
         Path(args.report).write_text(json.dumps(doc, indent=1) + "\n")
         print(f"report written to {args.report}")
+    if any(n.startswith("INCOMPLETE") for f in figures.values() for n in f.notes):
+        print("airdata port coverage: the run stopped before its end (see the notes)",
+              file=sys.stderr)
+        return 2
     if args.fail_under is not None and final.percent("mcdc") < args.fail_under:
         print(f"MC/DC {final.percent('mcdc'):.2f}% is below --fail-under {args.fail_under}",
               file=sys.stderr)
@@ -374,12 +527,15 @@ def add_parser(sub: Any, define_type: Any, epilog: str) -> None:
         "coverage", help="MC/DC, branch, line and region coverage of a C port by the vectors",
         description="Compile a C port with clang 19 source-based coverage and MC/DC "
                     "(-fprofile-instr-generate -fcoverage-mapping -fcoverage-mcdc), run every "
-                    "case of the suite through it in each precision, and report the covered "
+                    "case of the suite through it with the vector runner in each precision (scalar "
+                    "functions, NULL rules, and the batch entry points when the sources "
+                    "define them), and report the covered "
                     "regions, lines, branches and MC/DC conditions, listing by file:line what "
                     "no vector exercises. Needs clang-19, llvm-profdata-19 and llvm-cov-19 "
                     "(Debian: clang-19 llvm-19 libclang-rt-19-dev). Without --source the "
                     "bundled port is measured. Exit status 0: measured; 1: MC/DC below "
-                    "--fail-under; 2: could not run.",
+                    "--fail-under; 2: could not run, or the run stopped early. An engineering and "
+                    "verification aid, not certified flight software.",
         epilog=epilog)
     c.add_argument("--suite", default="vectors", metavar="DIR",
                    help="vector suite directory (default: ./vectors)")
@@ -393,6 +549,9 @@ def add_parser(sub: Any, define_type: Any, epilog: str) -> None:
                         "searched last")
     c.add_argument("--define", action="append", default=[], type=define_type,
                    metavar="NAME[=V]", help="preprocessor definition (repeatable)")
+    c.add_argument("--batch", choices=["auto", "yes", "no"], default="auto",
+                   help="drive the batch entry points of airdata_batch.h: when the sources "
+                        "define all of them (auto, default), always, or never")
     c.add_argument("--only", nargs="+", metavar="FUNC",
                    help="run only these functions' cases (reference names)")
     c.add_argument("--report", metavar="FILE.json", help="write the figures and the list "
