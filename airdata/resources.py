@@ -24,7 +24,7 @@ from pathlib import Path
 __all__ = ["ResourceError", "OverwriteError", "SUITE_FOLDERS", "SHARE", "REPOSITORY",
            "SHARED_FILES", "data_root", "origin", "suite_dir", "c_dir", "include_dir",
            "src_dir", "runner_dir", "makefile", "port_files", "suite_header_files",
-           "copy_files"]
+           "copy_files", "equations_doc"]
 
 _PACKAGE = Path(__file__).resolve().parent
 
@@ -50,6 +50,7 @@ SHARED_FILES: tuple[tuple[str, tuple[str, ...]], ...] = (
     ("bindings/c/src", ("*.c", "*.h")),
     ("bindings/c/runner", ("*.c",)),
     ("bindings/c/tests", ("driver.c",)),
+    ("docs", ("equations.md",)),
 )
 
 # A file every complete data root holds.
@@ -159,6 +160,11 @@ def port_files() -> list[tuple[Path, str]]:
         for pattern in patterns:
             out += [(p, f"{sub}/{p.name}") for p in sorted((base / sub).glob(pattern))]
     return sorted(set(out), key=lambda t: t[1])
+
+
+def equations_doc() -> Path:
+    """``docs/equations.md``: the equation ids with their published sources."""
+    return _existing(data_root() / "docs" / "equations.md", "the equation table")
 
 
 def suite_header_files(profile: str = "icao") -> list[tuple[Path, str]]:

@@ -174,6 +174,19 @@ def test_installed_port_check_both_precisions(venv: Path, empty: Path, profile: 
     assert "PASS: all 60 implemented function check(s) pass" in r.stdout
 
 
+def test_installed_evidence_report_carries_the_equation_sources(venv: Path, empty: Path
+                                                                ) -> None:
+    """The traceability table of the report comes from the installed docs/equations.md."""
+    import json
+
+    r = _run(venv, empty, "port", "check", "--only", "pressure_altitude", "--precision",
+             "double", "--report", "r.json")
+    assert r.returncode == 0, r.stderr
+    eqs = json.loads((empty / "r.json").read_text())["equations"]
+    assert eqs["ALT-1"]["source"].startswith("USSA 1976"), eqs
+    assert eqs["ALT-1"]["c"] == "ad_pressure_altitude"
+
+
 def test_installed_copies_build_and_run_the_runner(venv: Path, empty: Path) -> None:
     if shutil.which("make") is None or shutil.which("cc") is None:
         pytest.skip("make and cc are needed to build the copied runner")

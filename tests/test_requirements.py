@@ -23,7 +23,7 @@ def test_tolerance_forms_in_si() -> None:
 
 @pytest.mark.parametrize("text, unit, message", [
     ("1 kt", "m", "unit 'kt' is a speed unit; the output is in m"),
-    ("1 furlong", "m", "unit 'furlong' is unknown unit"),
+    ("1 furlong", "m", "unit 'furlong' is an unknown unit"),
     ("1", "m", "has no unit"),
     ("-1 ft", "m", "must be a finite number >= 0"),
     ("0 ft", "m", "allows no error at all"),

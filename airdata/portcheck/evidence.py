@@ -138,20 +138,23 @@ _EQ_ROW = re.compile(r"^\|\s*([A-Z]{3}-\d+)\s*\|(.*)\|\s*$")
 
 
 def equation_table() -> dict[str, dict[str, str]]:
-    """Equation id -> published source, Python and C function (docs/equations.md)."""
-    for root in (Path(__file__).resolve().parents[2], Path.cwd()):
-        p = root / "docs" / "equations.md"
-        if p.is_file():
-            out = {}
-            for line in p.read_text(encoding="utf-8").splitlines():
-                m = _EQ_ROW.match(line)
-                if m:
-                    cells = [c.strip() for c in m.group(2).split("|")]
-                    if len(cells) >= 4:
-                        out[m.group(1)] = {"source": cells[1], "python": cells[2].strip("`"),
-                                           "c": cells[3].strip("`")}
-            return out
-    return {}
+    """Equation id -> published source, Python and C function (docs/equations.md).
+
+    Read from this installation (:func:`airdata.resources.equations_doc`), never from the
+    working directory.
+    """
+    from .. import resources as located
+
+    out = {}
+    text = located.equations_doc().read_text(encoding="utf-8")
+    for line in text.splitlines():
+        m = _EQ_ROW.match(line)
+        if m:
+            cells = [c.strip() for c in m.group(2).split("|")]
+            if len(cells) >= 4:
+                out[m.group(1)] = {"source": cells[1], "python": cells[2].strip("`"),
+                                   "c": cells[3].strip("`")}
+    return out
 
 
 def report_schema() -> dict[str, Any]:

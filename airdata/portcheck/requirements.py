@@ -198,7 +198,7 @@ def parse_tolerance(text: str, si_unit: str, where: str = "error") -> Tolerance:
                 u = "1"
             if not _compatible(u, si_unit):
                 known = _unit_dimension(u)
-                why = "unknown unit" if known is None else f"a {known} unit"
+                why = "an unknown unit" if known is None else f"a {known} unit"
                 raise RequirementsError(
                     f"{where}: unit {_short(u)} is {why}; the output is in {si_unit}: use "
                     f"one of {', '.join(_suggest(si_unit))}")
@@ -238,7 +238,7 @@ def _parse_limit(value: Any, si_unit: str, where: str) -> tuple[float, str]:
             u = ""
         if si_unit and not _compatible(u, si_unit):
             known = _unit_dimension(u)
-            why = "unknown unit" if known is None else f"a {known} unit"
+            why = "an unknown unit" if known is None else f"a {known} unit"
             raise RequirementsError(f"{where}: unit {_short(u)} is {why}; the input is in "
                                     f"{si_unit}: use one of {', '.join(_suggest(si_unit))}")
         num = float(m.group(1))
