@@ -22,7 +22,7 @@ import numpy as np
 import pytest
 
 import airdata
-from airdata.vectors import build, jsonio, schema
+from airdata.vectors import build, history, jsonio, schema
 from airdata.vectors.catalogue import CATALOGUE, get_spec
 from airdata.vectors.diff import bump_between, diff_suites
 from airdata.vectors.scale import binary32_check, binary32_skip_status
@@ -388,7 +388,7 @@ def test_loader_refuses_oversize(tmp_path: Path) -> None:
 def test_verify_checked_in_suite_through_the_cli() -> None:
     r = _cli("vectors", "verify")
     assert r.returncode == 0, r.stderr[-2000:]
-    assert "OK - suite 1.0.0" in r.stdout and "30 functions" in r.stdout
+    assert f"OK - suite {history.CURRENT}" in r.stdout and "30 functions" in r.stdout
 
 
 def test_verify_mini_suite_ok(tmp_path: Path) -> None:
@@ -528,7 +528,7 @@ def test_diff_value_moved_beyond_tolerance_needs_major(tmp_path: Path) -> None:
     assert d.required == "major" and not d.sufficient
     r = _cli("vectors", "diff", str(a), str(b))
     assert r.returncode == 1 and "required bump: major" in r.stdout and "NOT sufficient" in r.stdout
-    _set_version(b, "2.0.0")
+    _set_version(b, f"{int(history.CURRENT.split('.')[0]) + 1}.0.0")
     r = _cli("vectors", "diff", str(a), str(b))
     assert r.returncode == 0, r.stdout + r.stderr
     assert f"changed beyond tolerance: case {cid}" in r.stdout
@@ -544,7 +544,8 @@ def test_diff_within_tolerance_is_patch_and_added_is_minor(tmp_path: Path) -> No
     _reseal(b)
     d = diff_suites(a, b)
     assert d.required == "patch" and not d.sufficient
-    _set_version(b, "1.0.1")
+    major, minor, patch = history.CURRENT.split(".")
+    _set_version(b, f"{major}.{minor}.{int(patch) + 1}")
     assert diff_suites(a, b).sufficient
     # A suite with one more function: minor.
     c = _mini(tmp_path / "c", ("pressure_altitude", "dynamic_pressure", "geometric_altitude"))
