@@ -660,3 +660,73 @@ def test_expected_and_scale_agree_with_the_mpmath_oracle(name: str) -> None:
                 assert 0.99 * want - 1e-300 <= got <= 3 * want + 1e-300, (name, c["id"], o)
             else:
                 assert got == pytest.approx(want, rel=1e-2, abs=1e-300), (name, c["id"], o)
+
+
+def _subnormal_case(c: dict[str, Any]) -> bool:
+    """A nonzero real input or expected output below the smallest normal binary64 number
+    (sys.float_info.min = 2**-1022, IEEE 754-2019 section 3.4: below it a number is
+    subnormal)."""
+    vals = [_val(v) for n, v in c["inputs"].items() if n != "use_setting"]
+    vals += [_val(v) for v in c["expected"].values()]
+    return any(0.0 < abs(v) < sys.float_info.min for v in vals)
+
+
+def test_subnormal_tag_marks_exactly_the_subnormal_cases() -> None:
+    """Tag ``subnormal`` on a case iff an input or expected output is subnormal, and the
+    suite has such cases in the functions whose tiny branches reach them."""
+    tagged: dict[str, int] = {}
+    for spec in CATALOGUE:
+        doc = json.loads((SUITE / "functions" / f"{spec.name}.json").read_text())
+        for c in doc["cases"]:
+            assert ("subnormal" in c["tags"]) == _subnormal_case(c), (spec.name, c["id"])
+        tagged[spec.name] = sum("subnormal" in c["tags"] for c in doc["cases"])
+    for name in ("cas_from_impact_pressure", "mach_from_impact_pressure", "cas_from_mach",
+                 "crossover_altitude", "max_operating_cas"):
+        assert tagged[name] > 0, name
+
+
+def test_port_check_skip_subnormal_leaves_out_the_tagged_cases() -> None:
+    """``port check --skip-subnormal`` judges every case but the tagged ones and prints
+    their count (read from the suite file, not typed)."""
+    name = "cas_from_impact_pressure"
+    doc = json.loads((SUITE / "functions" / f"{name}.json").read_text())
+    n_sub = sum("subnormal" in c["tags"] for c in doc["cases"])
+    n = len(doc["cases"])
+    assert n_sub > 0
+    r = _cli("port", "check", "--suite", str(SUITE), "--only", name, "--precision", "double",
+             "--skip-subnormal")
+    assert r.returncode == 0, r.stdout[-2000:] + r.stderr[-2000:]
+    assert f"0 of {n - n_sub} failed" in r.stdout, r.stdout
+    assert f"--skip-subnormal: {n_sub} cases tagged 'subnormal'" in r.stdout, r.stdout
+    r = _cli("port", "check", "--suite", str(SUITE), "--only", name, "--precision", "double")
+    assert r.returncode == 0 and f"0 of {n} failed" in r.stdout, r.stdout[-2000:]
+    assert "--skip-subnormal" not in r.stdout
+
+
+def test_port_verify_skip_subnormal_ignores_their_lines(tmp_path: Path) -> None:
+    """``port verify --skip-subnormal``: a results file without the subnormal cases
+    passes, one with them passes too (their lines are ignored); without the option the
+    missing lines are problems."""
+    name = "cas_from_impact_pressure"
+    doc = json.loads((SUITE / "functions" / f"{name}.json").read_text())
+    rows = []
+    for c in doc["cases"]:
+        y = airdata.cas_from_impact_pressure(_val(c["inputs"]["qc"]), strict=False)
+        rows.append((c, f"{c['id']} {c['status']} {float(y).hex()}"))
+    full = [line for _, line in rows]
+    kept = [line for c, line in rows if "subnormal" not in c["tags"]]
+    assert len(kept) < len(full)
+    files = {}
+    for key, lines in (("full", full), ("kept", kept)):
+        p = tmp_path / f"{key}.txt"
+        p.write_text("airdata-results 1 precision binary64\n" + "\n".join(lines)
+                     + f"\nend {len(lines)}\n")
+        files[key] = str(p)
+    base = ("port", "verify", "--suite", str(SUITE), "--only", name)
+    for key in ("full", "kept"):
+        r = _cli(*base[:2], files[key], *base[2:], "--skip-subnormal")
+        assert r.returncode == 0, (key, r.stdout[-2000:] + r.stderr[-2000:])
+        assert f"0 of {len(kept)} failed" in r.stdout, r.stdout
+    r = _cli(*base[:2], files["kept"], *base[2:])
+    assert r.returncode == 1, r.stdout[-2000:]
+    assert f"{len(full) - len(kept)} problem(s) in the results file" in r.stdout, r.stdout
