@@ -19,8 +19,8 @@
  * binary64 by tests/test_pitot_solver.py); one in reserve.  The loop bound. */
 #define AD_NEWTON_STEPS 4
 
-/* Below this Mach number a Mach-to-Mach conversion is linear (ad_i_cas_of_mach, ad_i_mach_of_cas):
- * 2^-40, exact in both precisions (airdata/pitot.py TINY_MACH). */
+/* Below this Mach number a Mach-to-Mach conversion is linear (ad_i_cas_of_mach,
+ * ad_i_mach_of_cas): 2^-40, exact in both precisions (airdata/pitot.py TINY_MACH). */
 #define AD_TINY_MACH ((ad_real)0x1p-40)
 
 /*
@@ -188,7 +188,6 @@ ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
 ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
 {
     ad_status st;
-    ad_real x = (ad_real)0;
     if (mach == NULL) {
         return AD_INVALID_INPUT;
     }
@@ -197,7 +196,7 @@ ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
         st = ad_i_check(ps, AD_DOM_PRESSURE);
     }
     if (st == AD_OK) {
-        x = qc / ps;
+        const ad_real x = qc / ps;
         st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *mach = (st == AD_OK) ? ad_i_mach_from_pressures(qc, ps) : ad_nan();
@@ -225,13 +224,12 @@ ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc)
 ad_status ad_cas_from_impact_pressure(ad_real qc, ad_real *cas)
 {
     ad_status st;
-    ad_real x = (ad_real)0;
     if (cas == NULL) {
         return AD_INVALID_INPUT;
     }
     st = ad_i_check(qc, AD_DOM_IMPACT_PRESSURE);
     if (st == AD_OK) {
-        x = qc / AD_P0;
+        const ad_real x = qc / AD_P0;
         st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
     *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_pressures(qc, AD_P0)) : ad_nan();
