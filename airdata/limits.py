@@ -18,10 +18,11 @@ LIM-5  maximum altitude as a fixed pressure altitude: the margin to it is
        ceiling - H(ps), whatever the temperature or the altimeter setting.
 
 Tiny speeds: below Mach 2^-40 (``pitot.TINY_MACH``) a Mach <-> CAS conversion takes
-its linear limit (``pitot.convert_mach``, as SPD-1 does), and where both limits of LIM-3
-or LIM-4 are that small, where their impact pressures may underflow, the comparison
-and the crossover pressure take the linear limit qc = 0.7 p M^2 too:
-M sqrt(ps/p0) against cas/a0, ps = p0 (cas/(a0 M))^2.
+its linear limit (``pitot.tiny_linear``, ``pitot.tiny_mach_of_cas``, as SPD-1 does,
+with no subnormal intermediate), and where both limits of LIM-3 or LIM-4 are that
+small, where their impact pressures may underflow, the comparison and the crossover
+pressure take the linear limit qc = 0.7 p M^2 too: M sqrt(ps/p0) against cas/a0 (both
+scaled by ``pitot.TINY_SCALE``), ps = p0 ((cas/M)/a0)^2.
 
 The kernels follow the pattern of :mod:`airdata.speeds` (argument order, statuses,
 ``strict``) so that they port one to one to C.
@@ -47,7 +48,15 @@ from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
 from .aircraft import Aircraft
 from .altimetry import altitude_of_pressure
 from .atmosphere import atmosphere, layer_table
-from .pitot import RATIO_MAX, TINY_MACH, convert_mach, ratio_from_mach
+from .pitot import (
+    RATIO_MAX,
+    TINY_MACH,
+    TINY_SCALE,
+    mach_from_ratio,
+    ratio_from_mach,
+    tiny_linear,
+    tiny_mach_of_cas,
+)
 from .profiles import GAMMA, Profile, get_profile
 from .status import DomainError, Status
 
@@ -283,8 +292,8 @@ def stall_cas(
     x = args["ps"] * ratio_from_mach(m) / prof.p0
     over = x > RATIO_MAX
     args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
-    return args.finish(prof.a0 * convert_mach(m, args["ps"] / prof.p0,
-                                              np.where(over, 0.0, x)))
+    return args.finish(np.where(m < TINY_MACH, tiny_linear(m, args["ps"] / prof.p0, prof.a0),
+                                prof.a0 * mach_from_ratio(np.where(over, 0.0, x))))
 
 
 def stall_tas(
@@ -404,7 +413,7 @@ def crossover_altitude(
     m0 = np.where(args["cas_limit"] / prof.a0 > dom.MACH_MAX, 0.0, args["cas_limit"] / prof.a0)
     tiny = (m0 < TINY_MACH) & (m < TINY_MACH)
     with np.errstate(divide="ignore", over="ignore"):  # ps = inf (tiny M): refused below
-        ps = np.where(tiny, prof.p0 * (m0 / m) ** 2,
+        ps = np.where(tiny, prof.p0 * ((args["cas_limit"] / m) / prof.a0) ** 2,
                       qc / ratio_from_mach(np.where(tiny, 0.5, m)))
     prange = dom.pressure(prof)
     out = (ps < prange.lo) | (ps > prange.hi)
@@ -423,10 +432,13 @@ def _limit_args(strict: bool, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: A
 
 
 def _tiny_limits(args: Inputs, prof: Profile) -> tuple[NDArray[np.bool_], F64, F64]:
-    """Where both limits are below Mach 2^-40: the mask, cas/a0 and M sqrt(ps/p0)."""
+    """Where both limits are below Mach 2^-40: the mask, and cas/a0 and M sqrt(ps/p0)
+    both times ``pitot.TINY_SCALE`` (normal even for subnormal limits, so that the
+    comparison is decided at full precision; bit-identical decisions elsewhere)."""
     m0 = args["cas_limit"] / prof.a0
     m = args["mach_limit"]
-    return (m0 < TINY_MACH) & (m < TINY_MACH), m0, m * np.sqrt(args["ps"] / prof.p0)
+    return ((m0 < TINY_MACH) & (m < TINY_MACH), (args["cas_limit"] * TINY_SCALE) / prof.a0,
+            (m * TINY_SCALE) * np.sqrt(args["ps"] / prof.p0))
 
 
 def max_operating_cas(
@@ -477,7 +489,9 @@ def max_operating_cas(
     tiny, m0, m_eq = _tiny_limits(args, prof)
     by_cas = np.where(tiny, m0 <= m_eq, qc_cas <= qc_mach)
     x = np.where(by_cas, 0.0, qc_mach / prof.p0)  # < qc_cas/p0 <= RATIO_MAX
-    cas = prof.a0 * convert_mach(args["mach_limit"], args["ps"] / prof.p0, x)
+    m = args["mach_limit"]
+    cas = np.where(m < TINY_MACH, tiny_linear(m, args["ps"] / prof.p0, prof.a0),
+                   prof.a0 * mach_from_ratio(x))
     return args.finish(np.where(by_cas, args["cas_limit"], cas))
 
 
@@ -529,7 +543,9 @@ def max_operating_mach(
     tiny, m0, m_eq = _tiny_limits(args, prof)
     by_mach = np.where(tiny, m_eq <= m0, qc_mach <= qc_cas)
     x = np.where(by_mach, 0.0, qc_cas / args["ps"])  # < qc_mach/ps <= RATIO_MAX
-    m = convert_mach(m0, prof.p0 / args["ps"], x)
+    m = np.where(args["cas_limit"] / prof.a0 < TINY_MACH,
+                 tiny_mach_of_cas(args["cas_limit"], prof.p0 / args["ps"], prof.a0),
+                 mach_from_ratio(x))
     return args.finish(np.where(by_mach, args["mach_limit"], m))
 
 

@@ -57,7 +57,7 @@ __all__ = [
     "mach_from_impact_pressure",
     "impact_pressure_from_cas",
     "cas_from_impact_pressure",
-    "NEWTON_STEPS",
+    "NEWTON_STEPS", "TINY_RATIO", "TINY_SCALE",
 ]
 
 F64 = NDArray[np.float64]
@@ -184,9 +184,47 @@ def _mach_subsonic(x: F64) -> F64:
 TINY_MACH = 2.0**-40
 
 
-def convert_mach(m: F64, k: F64, x: F64) -> F64:
-    """SPD-1 kernel: the Mach number whose qc/ps is x = k f(m) (PIT-2), linear for tiny m."""
-    return np.where(m < TINY_MACH, m * np.sqrt(k), mach_from_ratio(x))
+#: Power of two that lifts the tiny branches' intermediates out of the subnormal range:
+#: an input as small as the smallest subnormal (2^-1074) times 2^128 and divided by a
+#: pressure ratio of the model stays normal, and the one rounding into the subnormal
+#: range happens on the final product.  Scaling by a power of two is exact, so where
+#: the unscaled intermediates were normal the result is bit-identical to theirs.  (The
+#: binary32 C port uses 2^64, its own analogue.)
+TINY_SCALE = 2.0**128
+_TINY_UNSCALE = 2.0**-128
+
+#: Below this qc/p the closed form of PIT-2 is linear to within roundoff:
+#: M = sqrt(5 x/3.5) (1 - (5/28) x + ...), the neglected term below 2^-62 relative.
+TINY_RATIO = 2.0**-60
+
+
+def tiny_linear(v: F64, k: F64, a: float) -> F64:
+    """The linear tiny-speed conversion a v sqrt(k) with no subnormal intermediate.
+
+    ``a`` is a0 for a CAS from a Mach number, 1 for a Mach number from a Mach number;
+    one rounding into the subnormal range on the last product.
+    """
+    return (a * ((v * TINY_SCALE) * np.sqrt(k))) * _TINY_UNSCALE
+
+
+def tiny_mach_of_cas(cas: F64, k: F64, a0: float) -> F64:
+    """The linear tiny-speed conversion (cas/a0) sqrt(k) with no subnormal intermediate."""
+    return (((cas * TINY_SCALE) / a0) * np.sqrt(k)) * _TINY_UNSCALE
+
+
+def mach_from_pressures(qc: F64, p: F64) -> F64:
+    """PIT-2 kernel on qc and p (qc/p in [0, RATIO_MAX]): :func:`mach_from_ratio` of
+    qc/p, except below qc/p = TINY_RATIO, where the linear form sqrt(5 (x/3.5)) is
+    evaluated on qc 2^128 / p and scaled back by 2^-64, so that an impact pressure down
+    to the smallest subnormal gives its Mach number to full precision (qc/p itself
+    would underflow)."""
+    x = qc / p
+    tiny = x < TINY_RATIO
+    if not tiny.any():
+        return mach_from_ratio(x)
+    xs = (qc * TINY_SCALE) / p
+    lin = np.sqrt(5.0 * (xs / 3.5)) * 2.0**-64
+    return np.where(tiny, lin, mach_from_ratio(np.where(tiny, 0.0, x)))
 
 
 def impact_pressure_from_mach(
@@ -276,7 +314,7 @@ def mach_from_impact_pressure(
     x = args["qc"] / args["ps"]
     over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
-    return args.finish(mach_from_ratio(np.where(over, 0.0, x)))
+    return args.finish(mach_from_pressures(np.where(over, 0.0, args["qc"]), args["ps"]))
 
 
 def impact_pressure_from_cas(
@@ -364,4 +402,5 @@ def cas_from_impact_pressure(
     over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc", args["qc"],
               f"[0, {RATIO_MAX * prof.p0!r}] Pa (CAS <= 10 a0)")
-    return args.finish(prof.a0 * mach_from_ratio(np.where(over, 0.0, x)))
+    return args.finish(prof.a0 * mach_from_pressures(np.where(over, 0.0, args["qc"]),
+                                                     np.full_like(x, prof.p0)))

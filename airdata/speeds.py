@@ -10,7 +10,16 @@ import numpy as np
 
 from . import _domains as dom
 from ._inputs import ArrayLike, FloatOrArray, Inputs
-from .pitot import MACH_LIMIT, RATIO_LIMIT, RATIO_MAX, convert_mach, ratio_from_mach
+from .pitot import (
+    MACH_LIMIT,
+    RATIO_LIMIT,
+    RATIO_MAX,
+    TINY_MACH,
+    mach_from_ratio,
+    ratio_from_mach,
+    tiny_linear,
+    tiny_mach_of_cas,
+)
 from .profiles import GAMMA, Profile, get_profile
 from .status import Status
 
@@ -72,7 +81,9 @@ def cas_from_mach(
     over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     m = args["mach"]
-    return args.finish(prof.a0 * convert_mach(m, args["ps"] / prof.p0, np.where(over, 0.0, x)))
+    k = args["ps"] / prof.p0
+    return args.finish(np.where(m < TINY_MACH, tiny_linear(m, k, prof.a0),
+                                prof.a0 * mach_from_ratio(np.where(over, 0.0, x))))
 
 
 def mach_from_cas(
@@ -124,7 +135,9 @@ def mach_from_cas(
     x = prof.p0 * ratio_from_mach(np.where(over0, 0.0, m0)) / args["ps"]
     over = x > RATIO_LIMIT
     args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
-    return args.finish(convert_mach(m0, prof.p0 / args["ps"], np.where(over, 0.0, x)))
+    return args.finish(np.where(m0 < TINY_MACH,
+                                tiny_mach_of_cas(args["cas"], prof.p0 / args["ps"], prof.a0),
+                                mach_from_ratio(np.where(over, 0.0, x))))
 
 
 def eas_from_mach(

@@ -1,11 +1,13 @@
 """Units for the edges of a program; the core is SI throughout.
 
-Every factor is an exact definition:
+Every factor is an exact definition, except the inch of mercury:
 
 * foot: 0.3048 m (international foot, 1959);
 * knot: 1852 m per hour = 1852/3600 m/s (international nautical mile);
-* inch of mercury, conventional: 3386.389 Pa (the value used for altimeter settings;
-  from memory);
+* inch of mercury, conventional: 3386.389 Pa, the value used for altimeter settings
+  (from memory).  It is not exact: it is the 7-significant-figure rounding of
+  13595.1 kg/m3 x 9.80665 m/s2 x 0.0254 m = 3386.38864... Pa (a conventional mercury
+  density, standard gravity, the inch); the conversion uses 3386.389 Pa as given;
 * hectopascal 100 Pa, millibar 100 Pa, kilopascal 1000 Pa;
 * degree Celsius: K - 273.15; degree Fahrenheit: (F - 32) 5/9 + 273.15 K;
 * foot per minute: 0.3048/60 m/s; kilometre per hour: 1000/3600 m/s;

@@ -13,7 +13,9 @@ each paired with random values of the other inputs, then random points (uniform 
 altitude, Mach, temperature; log-uniform in pressure).  Inputs are binary64 numbers and
 the library is called on them with ``strict=True``: every sampled point is valid, and
 a refusal fails the test.  Outputs that would underflow to subnormal binary64 numbers
-are kept out of the sample (no relative accuracy is possible there).
+are kept out of the random sample; ``test_near_underflow_inputs_against_mpmath`` takes
+inputs down to the smallest subnormal (5e-324) and judges a subnormal result in units
+of 2**-1074 instead.
 
 ``AIRDATA_ACCURACY_POINTS`` (default 500) sets the points per case; tools/accuracy_table.py
 prints the same figures as a table.
@@ -819,6 +821,50 @@ def test_cse_detects_a_twenty_ulp_error() -> None:
     for _ in range(20):  # the scale is 4|y| (q = 0.7 ps M^2): 20 ulps give cse 2.5..5
         bad = math.nextafter(bad, math.inf)
     assert oracle.condition_scaled_error(bad, ystar["v"], scale["v"]) > 2.0
+
+
+#: Smallest normal binary64 number and the unit of the subnormal grid.
+NORMAL_MIN = 2.0**-1022
+SUBNORMAL_UNIT = 2.0**-1074
+
+
+def _underflow_score(y: float, ystar: Any, scale: Any) -> float:
+    """cse, or, for an exact value below the normal range, the error in units of the
+    subnormal grid 2**-1074 (a correctly rounded result scores <= 0.5 on either)."""
+    if abs(ystar) < NORMAL_MIN:
+        return float(abs(oracle.mp.mpf(y) - ystar) / SUBNORMAL_UNIT)
+    return oracle.condition_scaled_error(y, ystar, scale)
+
+
+#: Inputs down to the smallest subnormal, each with its oracle (NACA Report 1135 eq. 44
+#: and ICAO Doc 7488 at 50 digits, tests/oracle.py); ps = 54 019.9 Pa is about 5 000 m.
+UNDERFLOW_POINTS = [
+    *[("cas_from_impact_pressure", (q,)) for q in
+      (1e-300, 1e-307, 1e-310, 1e-315, 1e-320, 1e-323, 5e-324)],
+    *[("mach_from_impact_pressure", (q, p)) for q in (1e-305, 1e-310, 1e-320, 5e-324)
+      for p in (54019.9, 0.3734, 177687.0)],
+    *[("cas_from_mach", (m, 54019.9)) for m in (1e-300, 1e-308, 1e-310, 1e-320, 5e-324)],
+    *[("mach_from_cas", (c, p)) for c in (1e-300, 1e-310, 1e-320, 5e-324)
+      for p in (54019.9, 1.0)],
+    *[("max_operating_cas", (54019.9, 1.0, m)) for m in (1e-310, 5e-324)],
+    *[("max_operating_mach", (54019.9, c, 1e-12)) for c in (1e-310, 5e-324)],
+    *[("crossover_altitude", (v, v)) for v in (1e-300, 1e-310, 5e-324)],
+    ("crossover_altitude", (2e-323, 1e-323)),
+    *[("stall_eas", (w, s, 1.0, 1.0)) for w, s in ((1e-310, 1e-300), (1e-304, 1e-310))],
+    *[("stall_cas", (w, s, 1.0, 54019.9, 1.0)) for w, s in ((1e-310, 1e-300), (5e-324, 1.0))],
+]
+
+
+@pytest.mark.parametrize(("name", "x"), UNDERFLOW_POINTS)
+def test_near_underflow_inputs_against_mpmath(name: str, x: tuple[float, ...]) -> None:
+    """Subnormal and near-underflow inputs: cse <= 2 for a normal result, within 2 units
+    of 2**-1074 for a subnormal one (50-digit mpmath oracle of the published equations).
+    """
+    y = float(getattr(airdata, name)(*x))
+    ystar, scale = oracle.reference_and_scale(
+        lambda *v: {"value": getattr(oracle, name)(*v)}, list(x))
+    assert _underflow_score(y, ystar["value"], scale["value"]) <= CSE_BOUND, (
+        name, x, y, oracle.mp.nstr(ystar["value"], 20))
 
 
 @pytest.mark.parametrize("speed", [1e-160, 1e-300, 2.0**-40 * 0.999, 2.0**-40 * 1.001])

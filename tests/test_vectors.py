@@ -22,7 +22,7 @@ import numpy as np
 import pytest
 
 import airdata
-from airdata.vectors import build, jsonio, schema
+from airdata.vectors import build, history, jsonio, schema
 from airdata.vectors.catalogue import CATALOGUE, get_spec
 from airdata.vectors.diff import bump_between, diff_suites
 from airdata.vectors.scale import binary32_check, binary32_skip_status
@@ -406,7 +406,7 @@ def test_loader_refuses_oversize(tmp_path: Path) -> None:
 def test_verify_checked_in_suite_through_the_cli() -> None:
     r = _cli("vectors", "verify")
     assert r.returncode == 0, r.stderr[-2000:]
-    assert "OK - suite 1.0.0" in r.stdout and "30 functions" in r.stdout
+    assert f"OK - suite {history.CURRENT}" in r.stdout and "30 functions" in r.stdout
 
 
 def test_verify_mini_suite_ok(tmp_path: Path) -> None:
@@ -546,7 +546,7 @@ def test_diff_value_moved_beyond_tolerance_needs_major(tmp_path: Path) -> None:
     assert d.required == "major" and not d.sufficient
     r = _cli("vectors", "diff", str(a), str(b))
     assert r.returncode == 1 and "required bump: major" in r.stdout and "NOT sufficient" in r.stdout
-    _set_version(b, "2.0.0")
+    _set_version(b, f"{int(history.CURRENT.split('.')[0]) + 1}.0.0")
     r = _cli("vectors", "diff", str(a), str(b))
     assert r.returncode == 0, r.stdout + r.stderr
     assert f"changed beyond tolerance: case {cid}" in r.stdout
@@ -562,7 +562,8 @@ def test_diff_within_tolerance_is_patch_and_added_is_minor(tmp_path: Path) -> No
     _reseal(b)
     d = diff_suites(a, b)
     assert d.required == "patch" and not d.sufficient
-    _set_version(b, "1.0.1")
+    major, minor, patch = history.CURRENT.split(".")
+    _set_version(b, f"{major}.{minor}.{int(patch) + 1}")
     assert diff_suites(a, b).sufficient
     # A suite with one more function: minor.
     c = _mini(tmp_path / "c", ("pressure_altitude", "dynamic_pressure", "geometric_altitude"))
@@ -677,3 +678,73 @@ def test_expected_and_scale_agree_with_the_mpmath_oracle(name: str) -> None:
                 assert 0.99 * want - 1e-300 <= got <= 3 * want + 1e-300, (name, c["id"], o)
             else:
                 assert got == pytest.approx(want, rel=1e-2, abs=1e-300), (name, c["id"], o)
+
+
+def _subnormal_case(c: dict[str, Any]) -> bool:
+    """A nonzero real input or expected output below the smallest normal binary64 number
+    (sys.float_info.min = 2**-1022, IEEE 754-2019 section 3.4: below it a number is
+    subnormal)."""
+    vals = [_val(v) for n, v in c["inputs"].items() if n != "use_setting"]
+    vals += [_val(v) for v in c["expected"].values()]
+    return any(0.0 < abs(v) < sys.float_info.min for v in vals)
+
+
+def test_subnormal_tag_marks_exactly_the_subnormal_cases() -> None:
+    """Tag ``subnormal`` on a case iff an input or expected output is subnormal, and the
+    suite has such cases in the functions whose tiny branches reach them."""
+    tagged: dict[str, int] = {}
+    for spec in CATALOGUE:
+        doc = json.loads((SUITE / "functions" / f"{spec.name}.json").read_text())
+        for c in doc["cases"]:
+            assert ("subnormal" in c["tags"]) == _subnormal_case(c), (spec.name, c["id"])
+        tagged[spec.name] = sum("subnormal" in c["tags"] for c in doc["cases"])
+    for name in ("cas_from_impact_pressure", "mach_from_impact_pressure", "cas_from_mach",
+                 "crossover_altitude", "max_operating_cas"):
+        assert tagged[name] > 0, name
+
+
+def test_port_check_skip_subnormal_leaves_out_the_tagged_cases() -> None:
+    """``port check --skip-subnormal`` judges every case but the tagged ones and prints
+    their count (read from the suite file, not typed)."""
+    name = "cas_from_impact_pressure"
+    doc = json.loads((SUITE / "functions" / f"{name}.json").read_text())
+    n_sub = sum("subnormal" in c["tags"] for c in doc["cases"])
+    n = len(doc["cases"])
+    assert n_sub > 0
+    r = _cli("port", "check", "--suite", str(SUITE), "--only", name, "--precision", "double",
+             "--skip-subnormal")
+    assert r.returncode == 0, r.stdout[-2000:] + r.stderr[-2000:]
+    assert f"0 of {n - n_sub} failed" in r.stdout, r.stdout
+    assert f"--skip-subnormal: {n_sub} cases tagged 'subnormal'" in r.stdout, r.stdout
+    r = _cli("port", "check", "--suite", str(SUITE), "--only", name, "--precision", "double")
+    assert r.returncode == 0 and f"0 of {n} failed" in r.stdout, r.stdout[-2000:]
+    assert "--skip-subnormal" not in r.stdout
+
+
+def test_port_verify_skip_subnormal_ignores_their_lines(tmp_path: Path) -> None:
+    """``port verify --skip-subnormal``: a results file without the subnormal cases
+    passes, one with them passes too (their lines are ignored); without the option the
+    missing lines are problems."""
+    name = "cas_from_impact_pressure"
+    doc = json.loads((SUITE / "functions" / f"{name}.json").read_text())
+    rows = []
+    for c in doc["cases"]:
+        y = airdata.cas_from_impact_pressure(_val(c["inputs"]["qc"]), strict=False)
+        rows.append((c, f"{c['id']} {c['status']} {float(y).hex()}"))
+    full = [line for _, line in rows]
+    kept = [line for c, line in rows if "subnormal" not in c["tags"]]
+    assert len(kept) < len(full)
+    files = {}
+    for key, lines in (("full", full), ("kept", kept)):
+        p = tmp_path / f"{key}.txt"
+        p.write_text("airdata-results 1 precision binary64\n" + "\n".join(lines)
+                     + f"\nend {len(lines)}\n")
+        files[key] = str(p)
+    base = ("port", "verify", "--suite", str(SUITE), "--only", name)
+    for key in ("full", "kept"):
+        r = _cli(*base[:2], files[key], *base[2:], "--skip-subnormal")
+        assert r.returncode == 0, (key, r.stdout[-2000:] + r.stderr[-2000:])
+        assert f"0 of {len(kept)} failed" in r.stdout, r.stdout
+    r = _cli(*base[:2], files["kept"], *base[2:])
+    assert r.returncode == 1, r.stdout[-2000:]
+    assert f"{len(full) - len(kept)} problem(s) in the results file" in r.stdout, r.stdout

@@ -32,21 +32,11 @@ except ImportError:  # tests/ on sys.path
 
 SUITE = Path(__file__).resolve().parents[1] / "vectors"
 
-#: Cases of suite 1.0.0 whose expected value is beyond its bound against the oracle:
-#: subnormal inputs where the reference loses relative accuracy.  A known defect of the
-#: reference, being fixed with a rebuilt suite; the test asserts that exactly these
-#: fail (strict), so the set must be emptied when the fixed suite lands.
-KNOWN_DEFECTS: frozenset[str] = frozenset({
-    # mach_from_impact_pressure at qc = 5e-324 (and a few subnormal multiples): 0.0
-    # where the oracle gives ~1e-164
-    "45770dc2bd5c", "3856b6440cc2", "5bf15544e342", "fb3c5cdda089",
-    # cas_from_impact_pressure at subnormal qc: 0.0 where the oracle gives ~3e-162
-    "ccc6c07ab262", "fd23b8ad9d7a",
-    # cas_from_mach at a subnormal Mach number: 27..92 times the bound
-    "4b2261e76219", "819a4ffb8d8c",
-    # max_operating_cas with a subnormal Mach limit: the same conversion
-    "6ca26c96bcde", "0b8492ed4dbe",
-})
+#: Case ids whose expected value is allowed to be beyond its bound against the oracle.
+#: Empty since suite 2.0.0, which computes subnormal and near-underflow inputs to the
+#: accuracy goal; the test asserts that exactly these fail (strict), so a case that
+#: drifts out of its bound fails the test.
+KNOWN_DEFECTS: frozenset[str] = frozenset()
 
 OK, INVALID, ZEROED = 0, 1, 4
 SUBNORMAL_ULP = 2.0**-1074

@@ -140,11 +140,32 @@ def _precision_mismatch(spec: PortSpec, suite: LoadedSuite, functions: list[Func
             f"{' with -DAIRDATA_SINGLE' if precision == 'single' else ' without AIRDATA_SINGLE'})")
 
 
+#: The tag ``--skip-subnormal`` leaves out.
+_SUBNORMAL = "subnormal"
+
+
+def _skip_tags(args: argparse.Namespace) -> tuple[str, ...]:
+    """Tags of the cases to leave out at loading (``--skip-subnormal``)."""
+    return (_SUBNORMAL,) if getattr(args, "skip_subnormal", False) else ()
+
+
+def _skip_note(suite: LoadedSuite, env: dict[str, Any]) -> str | None:
+    """The line printed for ``--skip-subnormal``; records the counts in ``env``."""
+    if not suite.skipped:
+        return None
+    total = sum(suite.skipped.values())
+    env["skipped_cases"] = {"tags": [_SUBNORMAL], "count": total,
+                            "per_function": {n: c for n, c in suite.skipped.items() if c}}
+    return (f"--skip-subnormal: {total} cases tagged '{_SUBNORMAL}' were not judged (a "
+            "target that flushes subnormal numbers to zero)")
+
+
 def cmd_check(args: argparse.Namespace) -> int:
     """Run the check; print the summary; write the evidence files; return the exit status."""
     try:
         precisions = _precisions(args)
-        suite = load_cases(args.suite, args.only or None, args.profile)
+        suite = load_cases(args.suite, args.only or None, args.profile,
+                           _skip_tags(args))
         if suite.profile == "us1976" and all(n != _US1976 for n, _ in args.define):
             args.define.append((_US1976, None))
         spec = _spec(args)
@@ -172,6 +193,9 @@ def cmd_check(args: argparse.Namespace) -> int:
         reports.append(judge(suite, raw, precision, req))
         env = environment(spec, precision)
     print(render_summary(reports, spec.label))
+    note = _skip_note(suite, env)
+    if note:
+        print(note)
     try:
         for line in write_outputs(args, reports, env):
             print(line)
@@ -190,12 +214,15 @@ def cmd_verify(args: argparse.Namespace) -> int:
     from .results import ResultsError, arrays, read_results
 
     try:
-        suite = load_cases(args.suite, args.only or None)
+        suite = load_cases(args.suite, args.only or None, skip_tags=_skip_tags(args))
         ignored: frozenset[str] = frozenset()
-        if args.only:
+        if args.only or suite.skipped:
+            # Lines of the functions not selected, and of the cases skipped by tag, are
+            # ignored rather than reported as unknown.
             full = load_cases(args.suite)
-            ignored = frozenset(c for n, fc in full.functions.items()
-                                if n not in suite.functions for c in fc.ids)
+            kept = {c for fc in suite.functions.values() for c in fc.ids}
+            ignored = frozenset(c for fc in full.functions.values() for c in fc.ids
+                                if c not in kept)
         parsed = read_results(args.results, suite, ignored)
     except (SuiteError, ResultsError) as exc:
         print(f"airdata port verify: error: {exc}", file=sys.stderr)
@@ -221,6 +248,9 @@ def cmd_verify(args: argparse.Namespace) -> int:
     if parsed.problems:
         print(f"FAIL: {len(parsed.problems)} problem(s) in the results file (listed above)")
     env = environment()
+    note = _skip_note(suite, env)
+    if note:
+        print(note)
     env["results_file"] = {"path": str(args.results),
                            "problems": [str(p) for p in parsed.problems[:1000]],
                            "problem_count": len(parsed.problems)}
@@ -273,6 +303,10 @@ def register(subparsers: Any) -> None:
                    metavar="NAME[=V]", help="preprocessor definition (repeatable)")
     c.add_argument("--only", nargs="+", metavar="FUNC",
                    help="check only these functions (reference names, e.g. pressure_altitude)")
+    c.add_argument("--skip-subnormal", action="store_true",
+                   help="leave out the cases tagged 'subnormal' (an input or expected output "
+                        "below the normal binary64 range), for a target that flushes "
+                        "subnormal numbers to zero; the count is printed")
     c.add_argument("--implements", nargs="+", metavar="FUNC",
                    help="the functions the port implements; the others are reported 'not "
                         "implemented' (not failures)")
@@ -301,6 +335,10 @@ def register(subparsers: Any) -> None:
                         "double)")
     v.add_argument("--only", nargs="+", metavar="FUNC",
                    help="judge only these functions (the results of others are ignored)")
+    v.add_argument("--skip-subnormal", action="store_true",
+                   help="leave out the cases tagged 'subnormal' (their result lines, if "
+                        "any, are ignored), for a target that flushes subnormal numbers "
+                        "to zero; the count is printed")
     add_report_options(v)
     v.set_defaults(func=cmd_verify)
     from .coverage import add_parser as _add_coverage

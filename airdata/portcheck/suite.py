@@ -93,6 +93,8 @@ class LoadedSuite:
     eps_binary64: float
     eps_binary32: float
     functions: dict[str, FunctionCases] = field(default_factory=dict)
+    #: Cases left out at loading by tag (``skip_tags`` of :func:`load_cases`), per function.
+    skipped: dict[str, int] = field(default_factory=dict)
 
 
 def _sha(data: bytes) -> str:
@@ -106,10 +108,11 @@ def _num(pair: Any, where: str) -> float:
         raise SuiteError(str(exc)) from None
 
 
-def _function_cases(rel: str, doc: dict[str, Any]) -> FunctionCases:
+def _function_cases(rel: str, doc: dict[str, Any],
+                    skip_tags: Sequence[str] = ()) -> FunctionCases:
     inputs = [(str(a["name"]), str(a["kind"])) for a in doc["inputs"]]
     outputs = [str(o["name"]) for o in doc["outputs"]]
-    cases = doc["cases"]
+    cases = [c for c in doc["cases"] if not set(skip_tags) & set(c.get("tags", ()))]
     n = len(cases)
     x = np.empty((n, len(inputs)))
     expected = np.empty((n, len(outputs)))
@@ -136,7 +139,7 @@ def _function_cases(rel: str, doc: dict[str, Any]) -> FunctionCases:
 
 
 def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None,
-               profile: str | None = None) -> LoadedSuite:
+               profile: str | None = None, skip_tags: Sequence[str] = ()) -> LoadedSuite:
     """Read a suite (all functions, or those named in ``only``) for a port check.
 
     Parameters
@@ -149,6 +152,9 @@ def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None
     profile : {"icao", "us1976"}, optional
         Constants profile the suite must have (default: icao when ``root`` is not
         given, else whatever the suite's manifest says).
+    skip_tags : sequence of str, optional
+        Leave out every case carrying one of these tags (``subnormal`` for a target that
+        flushes subnormal numbers to zero); the count per function is in ``skipped``.
 
     Returns
     -------
@@ -218,5 +224,7 @@ def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None
         errors = validate(doc, function_schema(spec), limit=1)
         if errors:
             raise SuiteError(f"{path}: schema violation: {errors[0]}")
-        suite.functions[name] = _function_cases(rel, doc)
+        suite.functions[name] = _function_cases(rel, doc, skip_tags)
+        if skip_tags:
+            suite.skipped[name] = len(doc["cases"]) - suite.functions[name].count
     return suite

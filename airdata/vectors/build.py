@@ -33,7 +33,7 @@ from .._inputs import Domain
 from ..profiles import Profile, get_profile
 from ..status import Status
 from . import history
-from .catalogue import CATALOGUE, TAGS, Arg, CaseSeed, FunctionSpec, around, evaluate
+from .catalogue import CATALOGUE, TAGS, Arg, CaseSeed, FunctionSpec, around, evaluate, window
 from .cheader import render_common_header, render_function_header, render_umbrella_header
 from .jsonio import dumps_compact, encode_number
 from .scale import (
@@ -61,6 +61,10 @@ __all__ = ["SUITE_VERSION", "build_suite", "build_function", "render_function_fi
 SUITE_VERSION = history.CURRENT
 
 F64 = NDArray[np.float64]
+
+#: Smallest normal binary64 number: a case with a nonzero input or output below it is
+#: tagged ``subnormal``.
+_NORMAL_MIN = 2.0 ** -1022
 
 
 def statuses_block() -> dict[str, int]:
@@ -158,6 +162,9 @@ def generate_seeds(spec: FunctionSpec, profile: Profile) -> list[CaseSeed]:
                     for base in nominals:
                         seeds.append(CaseSeed(_with(spec, base, **{a.name: v}),
                                               (tag,) + (("ulp-offset",) if moved else ())))
+                for v in window(seam):
+                    seeds.append(CaseSeed(_with(spec, nominals[0], **{a.name: v}),
+                                          (tag, "seam-window")))
     # 3. Range ends at 0, +-1, +-4 ulp; 4. invalid and out-of-range inputs.
     for a in real:
         assert a.domain is not None
@@ -242,6 +249,10 @@ def compute_cases(spec: FunctionSpec, profile: Profile) -> FunctionCases:
             t.add("out-of-range")
         if mach is not None and mach[i] > 1.0 and status[i] == Status.OK:
             t.add("supersonic")
+        vals = [float(inputs[a.name][i]) for a in spec.real_args] \
+            + [float(y[o][i]) for o, _ in spec.outputs]
+        if any(0.0 < abs(v) < _NORMAL_MIN for v in vals):
+            t.add("subnormal")
         assert t <= set(TAGS), t - set(TAGS)
         tags.append(tuple(sorted(t)))
     return FunctionCases(ids, tags, inputs, y, scale, status, check32)

@@ -55,9 +55,17 @@ TAGS: dict[str, str] = {
     "no-setting": "air_data without an altimeter setting (setting is NaN and ignored)",
     "zeroed": "air_data: a small negative impact pressure read as zero",
     "noise-band": "air_data: a non-default noise band",
+    "subnormal": "an input or expected output is nonzero and below the normal binary64 range "
+                 "(2**-1022): a target that flushes subnormals to zero skips it",
+    "seam-window": "an input or derived quantity moved from a switch, layer base or limit by a "
+                   "relative offset between 1e-15 and 1e-3",
     "crossover": "at (or a few ulp from) the pressure where a CAS limit and a Mach limit "
                  "coincide: the maximum operating speed switches from one to the other",
 }
+
+#: Tags added after suite 1.0.0: optional in a file's tag table (format version 1 stays
+#: readable both ways).
+LATER_TAGS = frozenset({"subnormal", "seam-window"})
 
 _ULPS = (-4, -1, 1, 4)
 
@@ -73,6 +81,25 @@ def ulp_step(x: float, n: int) -> float:
 def around(x: float) -> list[tuple[float, bool]]:
     """``x`` and its neighbours at -4, -1, +1, +4 ulp; flag says 'moved'."""
     return [(x, False)] + [(ulp_step(x, n), True) for n in _ULPS]
+
+
+#: Relative offsets of a seam window, log-spaced from 1e-15 to 1e-3 (both sides are
+#: taken): a constant typed with 4 or 6 significant digits, or off by 1e-6 relative,
+#: or a binary32 value in a binary64 build, moves a switch by one of these.
+WINDOW = (1e-15, 1e-14, 1e-13, 1e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-7, 1e-6, 1e-5, 1e-4,
+          1e-3)
+
+
+def window(x: float) -> list[float]:
+    """``x`` moved by every relative offset of :data:`WINDOW`, below and above (an
+    offset that rounds back onto ``x`` is dropped)."""
+    out = []
+    for r in WINDOW:
+        for sign in (-1.0, 1.0):
+            v = x * (1.0 + sign * r) if x != 0.0 else sign * r
+            if v != x:
+                out.append(v)
+    return out
 
 
 @dataclass(frozen=True)
@@ -342,12 +369,17 @@ def _f(v: object) -> float:
 
 
 def _derived_limit(x_at_limit: float) -> list[tuple[float, str]]:
-    """A derived limit: values just inside and just outside (relative 1e-9 margin).
+    """A derived limit: values inside and outside at relative offsets 1e-13 .. 1e-3.
 
-    The margin keeps the expected status robust to a last-bit difference in how a
-    binary64 port computes the derived quantity.
+    The smallest offset, 1e-13, is about 450 binary64 ulp: far beyond the 8-ulp slack
+    of the derived checks and the last-bit differences of a binary64 port, so the
+    expected status is that of exact arithmetic, while a limit widened by 1e-13 or more
+    is caught.
     """
-    return [(x_at_limit * (1.0 - 1e-9), "inside"), (x_at_limit * (1.0 + 1e-9), "outside")]
+    out = []
+    for r in (1e-13, 1e-11, 1e-9, 1e-7, 1e-5, 1e-3):
+        out += [(x_at_limit * (1.0 - r), "inside"), (x_at_limit * (1.0 + r), "outside")]
+    return out
 
 
 def _extra_mach_from_qc(p: Profile) -> list[CaseSeed]:
@@ -363,10 +395,14 @@ def _extra_mach_from_qc(p: Profile) -> list[CaseSeed]:
         for v, moved in around(q0):
             seeds.append(CaseSeed({"qc": v, "ps": float(ps)},
                                   ("sonic",) + (("ulp-offset",) if moved else ())))
+        for v in window(q0):
+            seeds.append(CaseSeed({"qc": v, "ps": float(ps)}, ("sonic", "seam-window")))
         for v, _ in _derived_limit(RATIO_MAX * ps):
             seeds.append(CaseSeed({"qc": v, "ps": float(ps)}, ("derived-limit", "extreme")))
     for ps in [p.p0, 1000.0]:
         seeds.append(CaseSeed({"qc": 1e-6, "ps": ps}, ("tiny",)))
+    for v in (1e-305, 1e-310, 5e-324):  # near and below underflow
+        seeds.append(CaseSeed({"qc": v, "ps": 54019.9}, ("tiny", "extreme")))
     return seeds
 
 
@@ -375,6 +411,8 @@ def _extra_cas_from_qc(p: Profile) -> list[CaseSeed]:
     for v, _ in _derived_limit(RATIO_MAX * p.p0):
         seeds.append(CaseSeed({"qc": v}, ("derived-limit", "extreme")))
     seeds.append(CaseSeed({"qc": 1e-6}, ("tiny",)))
+    for v in (1e-300, 1e-307, 1e-310, 1e-320, 5e-324):  # near and below underflow
+        seeds.append(CaseSeed({"qc": v}, ("tiny", "extreme")))
     for cas in np.linspace(0.0, 10.0 * p.a0, 200)[1:]:
         seeds.append(CaseSeed({"qc": _f(airdata.impact_pressure_from_cas(cas, profile=p))},
                               ("sweep",) + (("supersonic",) if cas > p.a0 else ())))
@@ -402,6 +440,8 @@ def _extra_cas_from_mach(p: Profile) -> list[CaseSeed]:
         for v, _ in _derived_limit(m_lim):
             seeds.append(CaseSeed({"mach": v, "ps": ps}, ("derived-limit", "extreme")))
     seeds.append(CaseSeed({"mach": 1e-8, "ps": p.p0}, ("tiny",)))
+    for v in (1e-310, 5e-324):  # the tiny-Mach branch with a subnormal Mach number
+        seeds.append(CaseSeed({"mach": v, "ps": 54019.9}, ("tiny", "extreme")))
     return seeds
 
 
@@ -420,6 +460,12 @@ def _extra_mach_from_cas(p: Profile) -> list[CaseSeed]:
     for v, _ in _derived_limit(10.0 * p.a0):
         seeds.append(CaseSeed({"cas": v, "ps": p.p_max}, ("derived-limit", "extreme")))
     seeds.append(CaseSeed({"cas": 1e-6, "ps": p.p0}, ("tiny",)))
+    # The linear branch below cas/a0 = 2^-40, at its switch and well inside it.
+    for ps in (p.p0, 1000.0):
+        seeds.append(CaseSeed({"cas": 1e-12, "ps": ps}, ("tiny",)))
+        for v in window(2.0**-40 * p.a0):
+            seeds.append(CaseSeed({"cas": v, "ps": ps}, ("tiny", "seam-window")))
+    seeds.append(CaseSeed({"cas": 1e-310, "ps": 54019.9}, ("tiny", "extreme")))
     return seeds
 
 
@@ -462,6 +508,10 @@ def _extra_density_altitude(p: Profile) -> list[CaseSeed]:
         for v, moved in around(tb):
             seeds.append(CaseSeed({"ps": pb, "sat": v},
                                   ("layer-base",) + (("ulp-offset",) if moved else ())))
+        for v in window(tb):
+            seeds.append(CaseSeed({"ps": pb, "sat": v}, ("layer-base", "seam-window")))
+        for v in window(pb):
+            seeds.append(CaseSeed({"ps": v, "sat": tb}, ("layer-base", "seam-window")))
     # Density limits: the standard top and bottom of the model with a warmer/colder day.
     top = airdata.atmosphere(p.h_max, profile=p)
     bot = airdata.atmosphere(p.h_min, profile=p)
@@ -479,14 +529,21 @@ def _extra_altimeter_setting(p: Profile) -> list[CaseSeed]:
             if p.h_min <= hp <= 11000.0:
                 ps = _f(airdata.pressure_at_altitude(hp, profile=p))
                 seeds.append(CaseSeed({"ps": ps, "elevation": float(e)}, ("sweep",)))
-    # Derived limit: H(ps) - elevation at -5000 and 11000 m.
-    for ps in [p.p0, 80000.0]:
-        hp = _f(airdata.pressure_altitude(ps, profile=p))
-        for lim in (p.h_min, 11000.0):
+    # Derived limit: H(ps) - elevation at -5000 and 11000 m.  Every limit must get
+    # cases: a pressure whose candidates all fall outside the elevation range fails.
+    p8000 = _f(airdata.pressure_at_altitude(8000.0, profile=p))
+    for lim in (p.h_min, 11000.0):
+        kept = 0
+        for ps in [p.p0, 80000.0, p8000]:
+            hp = _f(airdata.pressure_altitude(ps, profile=p))
             e = hp - lim
             for v, _ in _derived_limit(e) if e != 0 else [(1e-6, ""), (-1e-6, "")]:
                 if -5000.0 <= v <= 11000.0:
+                    kept += 1
                     seeds.append(CaseSeed({"ps": ps, "elevation": v}, ("derived-limit",)))
+        if kept == 0:
+            raise RuntimeError(f"altimeter_setting: no derived-limit case for {lim} m "
+                               "(every candidate elevation is outside its range)")
     return seeds
 
 
@@ -547,6 +604,10 @@ def _extra_chain(p: Profile) -> list[CaseSeed]:
     for d in (-1e-6, -50.0, -100.0, -99.99):
         add(p.p0, p.p0 + d, 288.15, 1.0, 101325.0, ("zeroed",))
     add(p.p0, p.p0 - 100.5, 288.15, 1.0, None, ("invalid", "negative"))
+    # Within the noise band of qc but with a zero total pressure: invalid, not zeroed.
+    add(50.0, 0.0, 288.15, 1.0, None, ("invalid", "zero"))
+    # qc/ps below the Mach 10 limit but qc/p0 beyond the CAS 10 a0 limit.
+    add(150000.0, 13650000.0, 4500.0, 1.0, None, ("derived-limit", "out-of-range"))
     for nb in (0.0, 10000.0, 250.0):
         add(p.p0, p.p0 - 200.0, 288.15, 1.0, None, ("zeroed",), nb)
         add(p.p0, p.p0 - 1e-3, 288.15, 1.0, None, ("zeroed",), nb)
@@ -622,6 +683,9 @@ def _stall_extra(name: str) -> Callable[[Profile], list[CaseSeed]]:
         add(("tiny", "extreme"), weight=1.0e-300, wing_area=1.0, cl_max=1.0, ps=p.p0)
         # 2 n W and rho0 S CLmax normal but their quotient subnormal (the factored LIM-1).
         add(("tiny", "extreme"), weight=1.0e-305, wing_area=2000.0, cl_max=10.0)
+        # 2 n W subnormal alone (quotient normal); rho0 S CL subnormal alone.
+        add(("tiny", "extreme"), weight=1.0e-310, wing_area=1.0e-300, cl_max=1.0)
+        add(("tiny", "extreme"), weight=1.0e-304, wing_area=1.0e-310, cl_max=1.0)
         if name == "stall_eas":
             return seeds
         # Stall speeds swept over pressure (the altitude column of an envelope).
@@ -674,6 +738,8 @@ def _extra_crossover(p: Profile) -> list[CaseSeed]:
     # Both limits below Mach 2^-40 (linear pitot relation): a crossover near 2000 m.
     seeds.append(CaseSeed({"cas_limit": 3.0e-158, "mach_limit": 1.0e-160}, ("tiny", "extreme")))
     seeds.append(CaseSeed({"cas_limit": 1.0e-15, "mach_limit": 3.0e-18}, ("tiny",)))
+    for v in (1e-310, 5e-324):  # subnormal limits: crossover 0.875 Pa, 80 073.65 m
+        seeds.append(CaseSeed({"cas_limit": v, "mach_limit": v}, ("tiny", "extreme")))
     return seeds
 
 
@@ -700,6 +766,16 @@ def _extra_max_operating(p: Profile) -> list[CaseSeed]:
                    (150.0, 1.0e-20), (1.0e-20, 0.8)):
         seeds.append(CaseSeed({"ps": 0.25 * p.p0, "cas_limit": cas, "mach_limit": m},
                               ("tiny",) + (("extreme",) if min(cas, m) < 1e-100 else ())))
+    # Both limits tiny near their tie cas = a0 M sqrt(ps/p0) (= 0.5 a0 M here), on a
+    # window either side; and subnormal limits.
+    for m in (1.0e-300, 1.0e-20):
+        tie = 0.5 * p.a0 * m
+        for v in [tie] + window(tie)[:14]:
+            seeds.append(CaseSeed({"ps": 0.25 * p.p0, "cas_limit": v, "mach_limit": m},
+                                  ("tiny", "crossover", "seam-window")))
+    for cas, m in ((1.0, 5e-324), (5e-324, 5e-324), (1e-310, 1e-310), (1e-310, 1e-12)):
+        seeds.append(CaseSeed({"ps": 54019.9, "cas_limit": cas, "mach_limit": m},
+                              ("tiny", "extreme")))
     return seeds
 
 

@@ -10,6 +10,28 @@ __all__ = ["CURRENT", "ENTRIES", "POLICY", "changelog_text", "readme_text"]
 
 #: (suite version, schema version, what changed) - newest first.
 ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
+    ("2.0.0", 1, (
+        "Major: expected values of cases with subnormal or near-underflow inputs change "
+        "beyond their tolerance (they were wrong): cas_from_impact_pressure and "
+        "mach_from_impact_pressure scale qc before the square root; the tiny-Mach "
+        "branches of cas_from_mach, mach_from_cas, stall_cas and max_operating_cas/mach "
+        "have no subnormal intermediate; crossover_altitude of two subnormal limits is "
+        "in range (0.875 Pa, 80 073.65 m).",
+        "Scales: a subnormal input's derivative term comes from doubling it (a relative "
+        "step cannot move it); a nonzero subnormal expected value has scale >= 2**-1024 "
+        "(the binary64 bound is at least two units of 2**-1074).",
+        "New tag `subnormal` (an input or expected output nonzero and below 2**-1022): a "
+        "target that flushes subnormals to zero skips these (`airdata port check "
+        "--skip-subnormal`).",
+        "Seam windows (tag `seam-window`): every switch, layer base and derived limit also "
+        "at relative offsets 1e-15 .. 1e-3 on both sides; derived-limit cases at 1e-13, "
+        "1e-11, 1e-9, 1e-7, 1e-5 and 1e-3 inside and outside (1e-9 only before); "
+        "altimeter_setting's 11 000 m limit gets cases.",
+        "New status paths: air_data refused by qc/p0 alone (ps 150 000, pt 13 650 000, "
+        "tat 4 500) and with a zero total pressure inside the noise band; mach_from_cas "
+        "in its linear branch; max_operating_cas/mach with both limits tiny at their "
+        "tie; stall speeds with a subnormal numerator or denominator alone.",
+    )),
     ("1.0.0", 1, (
         "First suite: 30 catalogue functions (every public function of airdata, "
         "air_data with and without an altimeter setting), constants profile icao.",

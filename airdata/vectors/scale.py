@@ -17,6 +17,12 @@ nothing (x_i = 0); integer flags have no derivative.  Where a derivative is infi
 (the Mach number of air_data at qc = 0, a square root at zero) the scale is the finite
 slope of the small step: large, but not a principled bound.
 
+Subnormal inputs: a relative step cannot move a number below 2**-1022 finely enough,
+so its term comes from doubling it (exact): |log2(f(2x)/f(x)) f(x)|, exact for the power
+laws that every tiny-input branch of the model is.  A nonzero expected output below the
+normal binary64 range has a scale of at least 2**-1024 (``SUBNORMAL_SCALE_FLOOR``), so
+that the binary64 bound is at least two units of the subnormal grid.
+
 Acceptance bound of a port: ``|got - expected| <= K * eps * scale`` with eps = 2**-52
 for a binary64 port and 2**-23 for a binary32 port; NaN is expected exactly where the
 expected value is NaN (then the scale is NaN too).
@@ -69,6 +75,13 @@ EPS_BINARY32 = 2.0 ** -23
 STEPS = (2.0 ** -20, 2.0 ** -34)
 #: Relative move of each binary32-rounded input for the binary32 status rule.
 BINARY32_MOVE = 2.0 ** -19
+#: Smallest normal binary64 number: inputs below it get their derivative term by
+#: doubling (``_subnormal_terms``).
+NORMAL_MIN = 2.0 ** -1022
+#: Least scale of a nonzero subnormal expected output: k * eps_binary64 * 2**-1024 is
+#: two units of the subnormal grid (2**-1074), so a port that rounds the exact value
+#: either way passes (a relative bound alone would be below one unit there).
+SUBNORMAL_SCALE_FLOOR = 2.0 ** -1024
 #: Normal binary32 range.
 FLT_MIN = 2.0 ** -126
 FLT_MAX = float(np.finfo(np.float32).max)
@@ -76,7 +89,7 @@ FLT_MAX = float(np.finfo(np.float32).max)
 TOLERANCE_RULE = (
     "|got - expected| <= k * eps * scale, eps = eps_binary64 or eps_binary32 by the port's "
     "precision; scale = |y| + sum_i |df/dx_i * x_i| (3 significant digits); NaN expected "
-    "exactly where expected is NaN"
+    "exactly where expected is NaN; a nonzero subnormal expected value has scale >= 2**-1024"
 )
 BINARY32_RULE = (
     "binary32_check: 'skip' when an input or expected output is finite, nonzero and outside "
@@ -124,9 +137,44 @@ def condition_scale(spec: FunctionSpec, x: dict[str, F64], y: dict[str, F64],
                     with np.errstate(invalid="ignore", over="ignore", divide="ignore"):
                         term = np.abs((yp[o] - y[o][sel]) / dx * x0)
                     best[o] = np.fmax(best[o], np.where(np.isfinite(term), term, 0.0))
+        tiny = np.abs(x0) < NORMAL_MIN
+        if tiny.any():
+            _subnormal_terms(spec, sub, y, sel, tiny, arg.name, best, profile)
         for o, _ in spec.outputs:
             scale[o][sel] = scale[o][sel] + best[o]
+    for o, _ in spec.outputs:
+        v = scale[o]
+        with np.errstate(invalid="ignore"):
+            low = valid & (np.abs(y[o]) > 0.0) & (np.abs(y[o]) < NORMAL_MIN)
+        scale[o] = np.where(low, np.fmax(v, SUBNORMAL_SCALE_FLOOR), v)
     return scale
+
+
+def _subnormal_terms(spec: FunctionSpec, sub: dict[str, F64], y: dict[str, F64],
+                     sel: NDArray[np.intp], tiny: NDArray[np.bool_], name: str,
+                     best: dict[str, F64], profile: Profile) -> None:
+    """The derivative term |df/dx x| of a subnormal input x, in place in ``best``.
+
+    A relative step cannot move a subnormal number by less than one unit of 2**-1074,
+    so the term comes from doubling it (exact): with r = f(2x)/f(x) > 0 the term is
+    |log2(r) f(x)|, exact where f is a power law of x (every tiny-input branch of the
+    model is: linear or square-root relations) and first-order right elsewhere; where
+    f(x) is zero or f changes sign, |f(2x) - f(x)|/ln 2.
+    """
+    moved = {k: v[tiny] for k, v in sub.items()}
+    moved[name] = moved[name] * 2.0
+    yp = _outputs(spec, moved, profile)
+    rows = sel[tiny]
+    for o, _ in spec.outputs:
+        f0 = y[o][rows]
+        f1 = yp[o]
+        with np.errstate(invalid="ignore", divide="ignore", over="ignore"):
+            same = (f0 != 0.0) & (f1 != 0.0) & (np.sign(f0) == np.sign(f1))
+            ratio_term = np.abs(np.log2(np.where(same, f1 / np.where(same, f0, 1.0), 1.0)) * f0)
+            diff_term = np.abs(f1 - f0) / np.log(2.0)
+            term = np.where(same, ratio_term, diff_term)
+        term = np.where(np.isfinite(term), term, 0.0)
+        best[o][tiny] = term
 
 
 def round_scale(s: F64) -> F64:

@@ -15,7 +15,7 @@ from collections.abc import Iterator
 from typing import Any
 
 from ..status import Status
-from .catalogue import TAGS, FunctionSpec
+from .catalogue import LATER_TAGS, TAGS, FunctionSpec
 
 __all__ = ["SCHEMA_VERSION", "DIALECT", "manifest_schema", "function_schema",
            "schema_path_of_manifest", "schema_path_of_function", "validate", "SchemaError"]
@@ -121,7 +121,8 @@ def function_schema(spec: FunctionSpec) -> dict[str, Any]:
                         "maxItems": len(spec.outputs)},
             "statuses": _statuses_schema(),
             "tolerance": _tolerance_schema(),
-            "tags": _closed({k: {"const": v} for k, v in sorted(TAGS.items())}),
+            "tags": _closed({k: {"const": v} for k, v in sorted(TAGS.items())},
+                            [k for k in sorted(TAGS) if k not in LATER_TAGS]),
             "counts": _closed({"valid": {"type": "integer", "minimum": 0},
                                "invalid": {"type": "integer", "minimum": 0}}),
             "cases": {"type": "array", "items": case, "minItems": 1},

@@ -74,6 +74,9 @@ ad_real ad_i_altitude_of_density(ad_real p, ad_real temp, ad_real rho);
 /* pitot.c */
 ad_real ad_i_ratio_from_mach(ad_real m);
 ad_real ad_i_mach_from_ratio(ad_real x);
-ad_real ad_i_convert_mach(ad_real m, ad_real k, ad_real x);
+ad_real ad_i_tiny_up(ad_real v);
+ad_real ad_i_mach_from_pressures(ad_real qc, ad_real p);
+ad_real ad_i_cas_of_mach(ad_real m, ad_real k, ad_real x);
+ad_real ad_i_mach_of_cas(ad_real cas, ad_real k, ad_real x);
 
 #endif /* AD_INTERNAL_H */

@@ -19,10 +19,11 @@
  * are exact (no slack).  A bad one gives its status and a NaN output.
  *
  * Tiny speeds (airdata/limits.py): below Mach 2^-40 a Mach <-> CAS conversion takes
- * its linear limit (ad_i_convert_mach, as SPD-1 does), and where both limits of LIM-3
- * or LIM-4 are that small (their impact pressures may underflow) the comparison and
- * the crossover pressure take the linear limit qc = 0.7 p M^2 as well:
- * M sqrt(ps/p0) against cas/a0, and ps = p0 (cas/(a0 M))^2.
+ * its linear limit (ad_i_cas_of_mach, ad_i_mach_of_cas, as SPD-1 does), and where
+ * both limits of LIM-3 or LIM-4 are that small (their impact pressures may underflow)
+ * the comparison and the crossover pressure take the linear limit qc = 0.7 p M^2 as
+ * well: M sqrt(ps/p0) against cas/a0, both scaled by AD_TINY_SCALE (pitot.c) so that
+ * subnormal limits are compared at full precision, and ps = p0 ((cas/M)/a0)^2.
  *
  * Rounding: each result is a handful of correctly rounded operations plus the
  * kernels of pitot.c and altimetry.c (their bounds are written there); the vectors
@@ -168,7 +169,7 @@ ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_rea
         x = ps * ad_i_ratio_from_mach(m) / AD_P0;
         st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *cas = (st == AD_OK) ? (AD_A0 * ad_i_convert_mach(m, ps / AD_P0, x)) : ad_nan();
+    *cas = (st == AD_OK) ? ad_i_cas_of_mach(m, ps / AD_P0, x) : ad_nan();
     return st;
 }
 
@@ -222,7 +223,7 @@ ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *
     }
     if (st == AD_OK) {
         const ad_real m0 = cas_limit / AD_A0;
-        const ad_real r = m0 / mach_limit;
+        const ad_real r = (cas_limit / mach_limit) / AD_A0;
         ps = ad_both_tiny(m0, mach_limit) ? (AD_P0 * (r * r))
                                           : (qc / ad_i_ratio_from_mach(mach_limit));
         st = ((ps < AD_PRESSURE_LO) || (ps > AD_PRESSURE_HI)) ? AD_OUT_OF_RANGE : AD_OK;
@@ -257,7 +258,8 @@ static int ad_cas_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit,
     const ad_real m0 = cas_limit / AD_A0;
     int by_cas;
     if (ad_both_tiny(m0, mach_limit) != 0) {
-        by_cas = (m0 <= mach_limit * ad_sqrt(ps / AD_P0)) ? 1 : 0;
+        by_cas = ((ad_i_tiny_up(cas_limit) / AD_A0)
+                  <= (ad_i_tiny_up(mach_limit) * ad_sqrt(ps / AD_P0))) ? 1 : 0;
     } else {
         by_cas = (qc_cas <= qc_mach) ? 1 : 0;
     }
@@ -272,7 +274,8 @@ static int ad_mach_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit,
     const ad_real m0 = cas_limit / AD_A0;
     int by_mach;
     if (ad_both_tiny(m0, mach_limit) != 0) {
-        by_mach = (mach_limit * ad_sqrt(ps / AD_P0) <= m0) ? 1 : 0;
+        by_mach = ((ad_i_tiny_up(mach_limit) * ad_sqrt(ps / AD_P0))
+                   <= (ad_i_tiny_up(cas_limit) / AD_A0)) ? 1 : 0;
     } else {
         by_mach = (qc_mach <= qc_cas) ? 1 : 0;
     }
@@ -296,7 +299,7 @@ ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit
     if (st == AD_OK) {
         y = (ad_cas_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach) != 0)
                 ? cas_limit
-                : (AD_A0 * ad_i_convert_mach(mach_limit, ps / AD_P0, qc_mach / AD_P0));
+                : ad_i_cas_of_mach(mach_limit, ps / AD_P0, qc_mach / AD_P0);
     }
     *cas = (st == AD_OK) ? y : ad_nan();
     return st;
@@ -319,7 +322,7 @@ ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limi
     if (st == AD_OK) {
         y = (ad_mach_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach) != 0)
                 ? mach_limit
-                : ad_i_convert_mach(cas_limit / AD_A0, AD_P0 / ps, qc_cas / ps);
+                : ad_i_mach_of_cas(cas_limit, AD_P0 / ps, qc_cas / ps);
     }
     *mach = (st == AD_OK) ? y : ad_nan();
     return st;

@@ -19,8 +19,8 @@
  * binary64 by tests/test_pitot_solver.py); one in reserve.  The loop bound. */
 #define AD_NEWTON_STEPS 4
 
-/* Below this Mach number a Mach-to-Mach conversion is linear (ad_i_convert_mach):
- * 2^-40, exact in both precisions (airdata/pitot.py TINY_MACH). */
+/* Below this Mach number a Mach-to-Mach conversion is linear (ad_i_cas_of_mach,
+ * ad_i_mach_of_cas): 2^-40, exact in both precisions (airdata/pitot.py TINY_MACH). */
 #define AD_TINY_MACH ((ad_real)0x1p-40)
 
 /*
@@ -103,16 +103,70 @@ ad_real ad_i_mach_from_ratio(ad_real x)
 }
 
 /*
- * SPD-1 kernel (airdata/pitot.py convert_mach): the Mach number whose qc/ps is
- * x = k f(m), for the Mach number m of the same impact pressure at a static pressure
- * k times smaller.  Below m = 2^-40 (AD_TINY_MACH) the linear limit m sqrt(k): the
- * first neglected term is 0.125 m^2 |1 - k| relative, below 2^-60 for every k of the
- * model (< 3e5), while m^2 >= 2^-80 would be needed by the general form, which
- * underflows to a zero Mach number for tiny nonzero m.
+ * Tiny-speed scaling (airdata/pitot.py TINY_SCALE): a power of two that lifts the
+ * intermediates of the tiny branches out of the subnormal range, 2^128 in binary64 and
+ * 2^64 in binary32 (the smallest subnormal times it, divided by a pressure ratio of
+ * the model, stays normal); the one rounding into the subnormal range is the last
+ * product.  Exact scaling: bit-identical results where nothing was subnormal.
  */
-ad_real ad_i_convert_mach(ad_real m, ad_real k, ad_real x)
+#if defined(AIRDATA_SINGLE)
+#define AD_TINY_SCALE ((ad_real)0x1p64)
+#define AD_TINY_UNSCALE ((ad_real)0x1p-64)
+#define AD_TINY_ROOT_UNSCALE ((ad_real)0x1p-32)
+#else
+#define AD_TINY_SCALE ((ad_real)0x1p128)
+#define AD_TINY_UNSCALE ((ad_real)0x1p-128)
+#define AD_TINY_ROOT_UNSCALE ((ad_real)0x1p-64)
+#endif
+/* Below this qc/p the closed form of PIT-2 is linear to within roundoff (2^-60). */
+#define AD_TINY_RATIO ((ad_real)0x1p-60)
+
+/* v times AD_TINY_SCALE: a tiny speed or ratio lifted out of the subnormal range. */
+ad_real ad_i_tiny_up(ad_real v)
 {
-    return (m < AD_TINY_MACH) ? (m * ad_sqrt(k)) : ad_i_mach_from_ratio(x);
+    return v * AD_TINY_SCALE;
+}
+
+/* PIT-2 kernel on qc and p (airdata/pitot.py mach_from_pressures): the Mach number
+ * of qc/p, and below qc/p = 2^-60 the linear form sqrt(5 (x/3.5)) on qc 2^128/p,
+ * scaled back by 2^-64 (binary32: 2^64 and 2^-32). */
+ad_real ad_i_mach_from_pressures(ad_real qc, ad_real p)
+{
+    const ad_real x = qc / p;
+    ad_real m;
+    if (x < AD_TINY_RATIO) {
+        m = ad_sqrt(AD_K_5 * ((ad_i_tiny_up(qc) / p) / AD_K_3P5)) * AD_TINY_ROOT_UNSCALE;
+    } else {
+        m = ad_i_mach_from_ratio(x);
+    }
+    return m;
+}
+
+/* SPD-1 kernel to a CAS (airdata/speeds.py cas_from_mach): a0 f^-1(x), x = k f(m),
+ * and below m = 2^-40 the linear a0 m sqrt(k) with no subnormal intermediate. */
+ad_real ad_i_cas_of_mach(ad_real m, ad_real k, ad_real x)
+{
+    ad_real cas;
+    if (m < AD_TINY_MACH) {
+        cas = (AD_A0 * (ad_i_tiny_up(m) * ad_sqrt(k))) * AD_TINY_UNSCALE;
+    } else {
+        cas = AD_A0 * ad_i_mach_from_ratio(x);
+    }
+    return cas;
+}
+
+/* SPD-1 kernel to a Mach number from a CAS (airdata/speeds.py mach_from_cas):
+ * f^-1(x), and below cas/a0 = 2^-40 the linear (cas/a0) sqrt(k) with no subnormal
+ * intermediate. */
+ad_real ad_i_mach_of_cas(ad_real cas, ad_real k, ad_real x)
+{
+    ad_real m;
+    if ((cas / AD_A0) < AD_TINY_MACH) {
+        m = ((ad_i_tiny_up(cas) / AD_A0) * ad_sqrt(k)) * AD_TINY_UNSCALE;
+    } else {
+        m = ad_i_mach_from_ratio(x);
+    }
+    return m;
 }
 
 /* PIT-1: qc = ps f(M). */
@@ -134,7 +188,6 @@ ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
 ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
 {
     ad_status st;
-    ad_real x = (ad_real)0;
     if (mach == NULL) {
         return AD_INVALID_INPUT;
     }
@@ -143,10 +196,10 @@ ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
         st = ad_i_check(ps, AD_DOM_PRESSURE);
     }
     if (st == AD_OK) {
-        x = qc / ps;
+        const ad_real x = qc / ps;
         st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *mach = (st == AD_OK) ? ad_i_mach_from_ratio(x) : ad_nan();
+    *mach = (st == AD_OK) ? ad_i_mach_from_pressures(qc, ps) : ad_nan();
     return st;
 }
 
@@ -171,15 +224,14 @@ ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc)
 ad_status ad_cas_from_impact_pressure(ad_real qc, ad_real *cas)
 {
     ad_status st;
-    ad_real x = (ad_real)0;
     if (cas == NULL) {
         return AD_INVALID_INPUT;
     }
     st = ad_i_check(qc, AD_DOM_IMPACT_PRESSURE);
     if (st == AD_OK) {
-        x = qc / AD_P0;
+        const ad_real x = qc / AD_P0;
         st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_ratio(x)) : ad_nan();
+    *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_pressures(qc, AD_P0)) : ad_nan();
     return st;
 }

@@ -22,7 +22,8 @@ static ad_status ad_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id d
 
 /*
  * SPD-1: qc = ps f(M), cas = a0 f^-1(qc/p0); below M = 2^-40 the linear limit
- * cas = a0 M sqrt(ps/p0) (ad_i_convert_mach).  Derived check qc/p0 <= AD_RATIO_LIMIT.
+ * cas = a0 M sqrt(ps/p0) (ad_i_cas_of_mach, no subnormal intermediate).  Derived check
+ * qc/p0 <= AD_RATIO_LIMIT.
  */
 ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas)
 {
@@ -36,33 +37,32 @@ ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas)
         x = ps * ad_i_ratio_from_mach(mach) / AD_P0;
         st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *cas = (st == AD_OK) ? (AD_A0 * ad_i_convert_mach(mach, ps / AD_P0, x)) : ad_nan();
+    *cas = (st == AD_OK) ? ad_i_cas_of_mach(mach, ps / AD_P0, x) : ad_nan();
     return st;
 }
 
 /*
  * SPD-1 inverted: qc = p0 f(cas/a0), M = f^-1(qc/ps); below cas/a0 = 2^-40 the
- * linear limit M = (cas/a0) sqrt(p0/ps) (ad_i_convert_mach).  Derived checks in
- * order: cas/a0 <= AD_MACH_LIMIT, then qc/ps <= AD_RATIO_LIMIT.
+ * linear limit M = (cas/a0) sqrt(p0/ps) (ad_i_mach_of_cas, no subnormal intermediate).
+ * Derived checks in order: cas/a0 <= AD_MACH_LIMIT, then qc/ps <= AD_RATIO_LIMIT.
  */
 ad_status ad_mach_from_cas(ad_real cas, ad_real ps, ad_real *mach)
 {
     ad_status st;
     ad_real x = (ad_real)0;
-    ad_real m0 = (ad_real)0;
     if (mach == NULL) {
         return AD_INVALID_INPUT;
     }
     st = ad_check2(cas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
     if (st == AD_OK) {
-        m0 = cas / AD_A0;
+        const ad_real m0 = cas / AD_A0;
         st = (m0 > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
         if (st == AD_OK) {
             x = AD_P0 * ad_i_ratio_from_mach(m0) / ps;
             st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
         }
     }
-    *mach = (st == AD_OK) ? ad_i_convert_mach(m0, AD_P0 / ps, x) : ad_nan();
+    *mach = (st == AD_OK) ? ad_i_mach_of_cas(cas, AD_P0 / ps, x) : ad_nan();
     return st;
 }
 
