@@ -14,6 +14,9 @@
  * Deliberate defects, for showing that the check catches them:
  *   -DDEFECT_GAS_CONSTANT   R = 287.05387 instead of 287.05287 (6th digit)
  *   -DDEFECT_SHORT_SOLVER   one Newton step instead of five
+ *   -DDEFECT_UNDERFLOW      subsonic Mach from qc/ps as written, which underflows to
+ *                           zero when qc is subnormal (the team's code before 2.0.0
+ *                           of the vectors sampled such inputs)
  */
 
 /* The team builds this file in binary64 whatever the adapter's precision. */
@@ -210,6 +213,12 @@ fti_code fti_mach_of_qc(fti_num ps, fti_num qc, fti_num *mach)
     }
     if (x > AD_RATIO_SONIC) {
         *mach = fti_supersonic_mach(x);
+#ifndef DEFECT_UNDERFLOW
+    } else if (x < 0x1p-60) {
+        /* Linear below qc/ps = 2^-60 (M^2 = 5 x / 3.5 to within 1e-18), formed on qc
+         * scaled by 2^128: qc/ps itself may underflow or lose digits. */
+        *mach = sqrt(5.0 * ((qc * 0x1p128 / ps) / 3.5)) * 0x1p-64;
+#endif
     } else {
         *mach = sqrt(5.0 * expm1(log1p(x) / 3.5));
     }
