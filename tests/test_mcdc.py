@@ -133,15 +133,13 @@ def test_vectors_alone_cover_everything_with_both_precisions(runs: dict, kind: s
 #: MC/DC conditions, 679/680 branches; binary32 alone 159/163 conditions (97.55 %),
 #: 674/680 branches.  Floors a little below, so a lost condition fails.
 FLOOR = {"binary64": {"mcdc": 100.0, "branches": 99.8, "lines": 100.0, "regions": 99.9},
-         "binary32": {"mcdc": 97.5, "branches": 99.1, "lines": 99.8, "regions": 99.6}}
+         "binary32": {"mcdc": 100.0, "branches": 100.0, "lines": 100.0, "regions": 100.0}}
 
-#: What one precision alone does not reach, and why: each reason checked on 2026-12-02
-#: against the C at that line and the suite's cases (binary32 = the binary64 vector
-#: inputs rounded to float, as the runner converts them).  None is a property of the
-#: code: the binary32 ones are reachable with binary32 inputs the suite does not have
-#: (the inputs named; test_binary32_reaches_what_the_vectors_miss_with_other_inputs runs
-#: them), so they are facts about the vectors' binary64 magnitudes.  The binary64 one
-#: is not reached by a sweep of 4e6 inputs that reaches it in binary32
+#: What one precision alone does not reach, and why (checked against the C at that line
+#: and the suite's cases; binary32 = the vector inputs rounded to float, as the runner
+#: converts them).  binary32 reaches everything: the suite has stall and
+#: maximum-operating-speed cases whose inputs are subnormal in binary32 only.  The
+#: binary64 miss is not reached by a sweep of 4e6 inputs that reaches it in binary32
 #: (test_binary64_never_clamps_in_the_supersonic_solver_sweep; the clamp counts per
 #: precision were taken with an instrumented copy of the solver).
 NOT_REACHED = {
@@ -154,57 +152,11 @@ NOT_REACHED = {
                       "i.e. up to +2.2e-10, and 2e6 spread geometrically up to "
                       "AD_RATIO_MAX); the start value is never below 1 in either",
     },
-    "binary32": {
-        "chain.c:68": "q/p0 > L with q/ps <= L needs ps > p0; the suite's one such case "
-                      "(air_data 70950fa02b76, ps = 177687.0457 Pa at the top of the "
-                      "range) exceeds L = 128.21697 by 1.0e-9 relative, under binary32's "
-                      "half ulp 2^-24 = 6.0e-8, so q/p0 rounds to exactly L; reachable in "
-                      "binary32 with ps = 150000 Pa, pt = 1.317e7 Pa (q/ps = 86.8, "
-                      "q/p0 = 128.5 > L)",
-        "limits.c:86": "the suite's tiny stall inputs are binary64 subnormals (weight or "
-                       "wing area 5e-324, 2e-323, ...), below binary32's smallest "
-                       "subnormal 2^-149 = 1.4e-45: they round to 0 and fail the "
-                       "positive-domain check first; reachable in binary32 with weight "
-                       "1e-40 (num = 2e-40 < 2^-126 = 1.18e-38), wing area 1e-40 (den "
-                       "< 2^-126) and weight 1e-36 over rho0 S CL = 1.2e4 (q = 1.6e-40 < 2^-126)",
-        "limits.c:87": "the body of limits.c:86 (same inputs)",
-        "limits.c:88": "the body of limits.c:86 (same inputs)",
-        "limits.c:260": "of the suite's two both-tiny cases (cas_limit/a0 and mach_limit "
-                        "< 2^-40) the CAS-governs one has cas_limit 1e-160 m/s, mach_limit "
-                        "1e-150, both under 2^-149 = 1.4e-45: 0 in binary32, refused by "
-                        "the positive-domain check; the other (cas 1e-13, M 5e-16: "
-                        "m0 = 2.9e-16 > M sqrt(ps/p0) = 2.5e-16) only lets Mach govern; "
-                        "reachable in binary32 with ps = 25331.25 Pa, cas 1e-16, M 1e-15 "
-                        "(m0 = 2.9e-19 <= 5.0e-16)",
-        "limits.c:275": "the same two cases in the Mach-governs test of limits.c:260",
-    },
+    # binary32 alone reaches every condition (the suite samples the stall and
+    # maximum-operating-speed branches with inputs subnormal in binary32 only).
+    "binary32": {},
 }
 
-
-#: binary32 inputs outside the suite that reach what NOT_REACHED["binary32"] lists (the
-#: inputs named there); each call's place and condition in the comment.
-_REACH32 = r"""
-#include "airdata.h"
-int main(void)
-{
-    ad_real v;
-    ad_air_data_t o;
-    int bad = 0;
-    bad += ad_stall_eas(600000.0f, 120.0f, 2.4f, 1.0f, &v) != AD_OK;  /* 86: all normal */
-    bad += ad_stall_eas(1e-40f, 120.0f, 2.4f, 1.0f, &v) != AD_OK;     /* 86: num */
-    (void)ad_stall_eas(1e3f, 1e-40f, 1.0f, 1.0f, &v);                 /* 86: den */
-    bad += ad_stall_eas(1e-36f, 1000.0f, 10.0f, 1.0f, &v) != AD_OK;   /* 86: quotient */
-    bad += ad_air_data(100000.0f, 130000.0f, 288.15f, 1.0f, 101325.0f, 0, 100.0f, &o)
-           != AD_OK;                                                  /* chain 68: neither */
-    bad += ad_air_data(150000.0f, 13170000.0f, 288.15f, 1.0f, 101325.0f, 0, 100.0f, &o)
-           != AD_OUT_OF_RANGE;                                        /* 68: q/p0 alone */
-    bad += ad_air_data(20000.0f, 13020000.0f, 288.15f, 1.0f, 101325.0f, 0, 100.0f, &o)
-           != AD_OUT_OF_RANGE;                                        /* 68: q/ps */
-    bad += ad_max_operating_cas(25331.25f, 1e-16f, 1e-15f, &v) != AD_OK;   /* 260 */
-    bad += ad_max_operating_mach(25331.25f, 1e-16f, 1e-15f, &v) != AD_OK;  /* 275 */
-    return bad;
-}
-"""
 
 #: Sweep of the supersonic solver through ad_i_mach_from_ratio: the 2e6 representable
 #: qc/ps just above AD_RATIO_SONIC, then 2e6 spread geometrically to AD_RATIO_MAX.
@@ -250,17 +202,6 @@ def _harness(runs: dict, tmp: Path, name: str, text: str, extra: list[str]) -> F
     return measure(tools, [exe], merge_profiles(tools, [raw], tmp / f"{name}.profdata"), PORT)
 
 
-def test_binary32_reaches_what_the_vectors_miss_with_other_inputs(runs: dict,
-                                                                  tmp_path: Path) -> None:
-    # the binary32 reasons of NOT_REACHED say each place is reachable in binary32
-    fig = _harness(runs, tmp_path, "reach32", _REACH32, ["-DAIRDATA_SINGLE"])
-    wanted = {"chain.c:68:13": "MC/DC", "limits.c:86:9": "MC/DC",
-              "limits.c:260:18": "branch: condition never true",
-              "limits.c:275:19": "branch: condition never false"}
-    for place, kind in wanted.items():
-        assert not [m for m in fig.missed if m.startswith(place) and kind in m], place
-
-
 def test_binary64_never_clamps_in_the_supersonic_solver_sweep(runs: dict,
                                                               tmp_path: Path) -> None:
     # NOT_REACHED["binary64"]["pitot.c:54"]: the clamp is taken in binary32, not in
@@ -289,13 +230,7 @@ def test_every_miss_of_one_precision_is_known(runs: dict, precision: str) -> Non
     assert places == set(NOT_REACHED[precision]), sorted(places ^ set(NOT_REACHED[precision]))
 
 
-@pytest.mark.parametrize("precision", [
-    "binary64",
-    pytest.param("binary32", marks=pytest.mark.xfail(
-        strict=True, reason="binary32 alone misses 4 MC/DC conditions of the vectors' "
-        "binary64 magnitudes: " + "; ".join(f"{k}: {v}" for k, v in NOT_REACHED["binary32"].items()
-                                            if k in ("chain.c:68", "limits.c:86")))),
-])
+@pytest.mark.parametrize("precision", list(PRECISIONS))
 def test_one_precision_alone_covers_every_mcdc_condition(runs: dict, precision: str) -> None:
     fig = runs[precision]
     assert fig.percent("mcdc") == 100.0, [m for m in fig.missed if "MC/DC" in m]
@@ -304,9 +239,7 @@ def test_one_precision_alone_covers_every_mcdc_condition(runs: dict, precision: 
 @pytest.mark.parametrize("precision", [
     pytest.param("binary64", marks=pytest.mark.xfail(
         strict=True, reason="binary64 alone: " + NOT_REACHED["binary64"]["pitot.c:54"])),
-    pytest.param("binary32", marks=pytest.mark.xfail(
-        strict=True, reason="binary32 alone: the vectors' binary64-only magnitudes "
-        "(limits.c:86, 260, 275; chain.c:68), see NOT_REACHED")),
+    "binary32",
 ])
 def test_one_precision_alone_covers_every_branch(runs: dict, precision: str) -> None:
     fig = runs[precision]

@@ -686,6 +686,11 @@ def _stall_extra(name: str) -> Callable[[Profile], list[CaseSeed]]:
         # 2 n W subnormal alone (quotient normal); rho0 S CL subnormal alone.
         add(("tiny", "extreme"), weight=1.0e-310, wing_area=1.0e-300, cl_max=1.0)
         add(("tiny", "extreme"), weight=1.0e-304, wing_area=1.0e-310, cl_max=1.0)
+        # The same three in binary32's range: 2 n W, rho0 S CL or their quotient below
+        # 2^-126 = 1.18e-38 (binary32 subnormal), the others normal in both precisions.
+        add(("tiny",), weight=1.0e-40, wing_area=120.0, cl_max=2.4)
+        add(("tiny",), weight=1.0e3, wing_area=1.0e-40, cl_max=1.0)
+        add(("tiny",), weight=1.0e-36, wing_area=1000.0, cl_max=10.0)
         if name == "stall_eas":
             return seeds
         # Stall speeds swept over pressure (the altitude column of an envelope).
@@ -762,8 +767,9 @@ def _extra_max_operating(p: Profile) -> list[CaseSeed]:
                               ("derived-limit", "extreme")))
     seeds.append(CaseSeed({"ps": p.p0, "cas_limit": 1e-6, "mach_limit": 1e-8}, ("tiny",)))
     # Below Mach 2^-40: either limit governing, the other one not tiny or tiny too.
+    # (1e-16, 1e-15): CAS governs with both tiny and normal in binary32 too.
     for cas, m in ((1.0e-150, 1.0e-155), (1.0e-160, 1.0e-150), (1.0e-13, 5.0e-16),
-                   (150.0, 1.0e-20), (1.0e-20, 0.8)):
+                   (1.0e-16, 1.0e-15), (150.0, 1.0e-20), (1.0e-20, 0.8)):
         seeds.append(CaseSeed({"ps": 0.25 * p.p0, "cas_limit": cas, "mach_limit": m},
                               ("tiny",) + (("extreme",) if min(cas, m) < 1e-100 else ())))
     # Both limits tiny near their tie cas = a0 M sqrt(ps/p0) (= 0.5 a0 M here), on a

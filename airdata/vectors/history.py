@@ -30,7 +30,10 @@ ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
         "New status paths: air_data refused by qc/p0 alone (ps 150 000, pt 13 650 000, "
         "tat 4 500) and with a zero total pressure inside the noise band; mach_from_cas "
         "in its linear branch; max_operating_cas/mach with both limits tiny at their "
-        "tie; stall speeds with a subnormal numerator or denominator alone.",
+        "tie; stall speeds with a subnormal numerator or denominator alone; the same "
+        "stall and maximum-operating-speed branches with inputs that are subnormal in "
+        "binary32 only (weight or wing area 1e-40, cas 1e-16 with M 1e-15), so a "
+        "binary32 build reaches them too.",
     )),
     ("1.0.0", 1, (
         "First suite: 30 catalogue functions (every public function of airdata, "
