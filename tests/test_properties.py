@@ -13,7 +13,11 @@ Round trips
     is 4 eps (|x| + |g_y y| + |g_p p|).  In plain ulps this is about 4 (1 + kappa) ulp of
     x, kappa = |d ln g / d ln y| + |d ln g / d ln p| the inverse's condition number.  The
     derivatives in the scale are central differences of the library's own functions
-    (they only size the tolerance, never the expected value).
+    (they only size the tolerance, never the expected value).  A y below 2**-1022
+    (subnormal, or underflowed to zero) adds |g(y + 2**-1074) - g(y)|: its absolute
+    error is the subnormal spacing whatever its relative size.  A refusal (NaN) of a
+    valid intermediate fails the test unless it is the documented range end, which is
+    checked through another function (never assumed away).
 
 Monotonicity
     on dense sorted sweeps whose spacing moves the exact result by far more than its
@@ -72,8 +76,11 @@ def p_range(profile: str) -> tuple[float, float]:
 
 
 def s_range(profile: str) -> tuple[float, float]:
-    d = dom.setting(airdata.get_profile(profile))
-    return d.lo, d.hi
+    """Station pressures of an altimeter setting that pressure_altitude also accepts (the
+    setting range has 8 eps of slack at its ends, the pressure range none)."""
+    prof = airdata.get_profile(profile)
+    d, p = dom.setting(prof), dom.pressure(prof)
+    return max(d.lo, p.lo), min(d.hi, p.hi)
 
 
 def log_uniform(lo: float, hi: float) -> st.SearchStrategy[float]:
@@ -126,6 +133,10 @@ def assert_round_trip(x: float, back: float, g: Callable[..., float], y: float,
     if back == x:
         return
     scale = abs(x) + central(lambda v: g(v, **params, strict=False), y)
+    if abs(y) < 2.0**-1022:
+        # y in the subnormal range (or underflowed to zero) carries an absolute error
+        # of up to 2^-1074 whatever its relative size: add what that step moves g by
+        scale += abs(g(y + 5e-324, **params, strict=False) - g(y, **params, strict=False))
     for name, value in params.items():
         scale += central(lambda v, n=name: g(y, **{**params, n: v}, strict=False), value)
     err = abs(back - x)
@@ -166,7 +177,9 @@ def test_round_trip_geopotential_geometric(h: float, profile: str) -> None:
     assert_round_trip(h, back, lambda y, strict: airdata.geopotential_altitude(
         y, profile=profile, strict=strict), z, {})
     back_z = airdata.geometric_altitude(back, profile=profile, strict=False)
-    assume(not math.isnan(back_z))  # h = -5000 comes back below -5000 (xfail below)
+    if math.isnan(back_z):  # only h = -5000 may come back below -5000 (xfail below)
+        assert h == -5000.0 and back < -5000.0, ("valid altitude refused", h, back)
+        return
     assert_round_trip(z, back_z, lambda y, strict: airdata.geometric_altitude(
         y, profile=profile, strict=strict), back, {})
 
@@ -176,9 +189,8 @@ def test_round_trip_mach_impact_pressure(data: st.DataObject, mach: float,
                                          profile: str) -> None:
     ps = data.draw(pressures(profile))
     qc = airdata.impact_pressure_from_mach(mach, ps, profile=profile)
-    assume(qc == 0.0 or qc > 1e-290)
     back = airdata.mach_from_impact_pressure(qc, ps, profile=profile, strict=False)
-    assume(not math.isnan(back))  # range ends: test_image_of_mach_10_accepted_*
+    assert not math.isnan(back), ("valid impact pressure refused", mach, ps, qc)
     assert_round_trip(mach, back, lambda y, ps, strict: airdata.mach_from_impact_pressure(
         y, ps, profile=profile, strict=strict), qc, {"ps": ps})
     # and the other way round, from the impact pressure
@@ -191,7 +203,6 @@ def test_round_trip_mach_impact_pressure(data: st.DataObject, mach: float,
 def test_round_trip_cas_impact_pressure(frac: float, profile: str) -> None:
     a0 = airdata.get_profile(profile).a0
     cas = min(frac * 10.0 * a0, 10.0 * a0)
-    assume(cas == 0.0 or cas > 1e-140)
     qc = airdata.impact_pressure_from_cas(cas, profile=profile)
     back = airdata.cas_from_impact_pressure(qc, profile=profile)
     assert_round_trip(cas, back, lambda y, strict: airdata.cas_from_impact_pressure(
@@ -202,9 +213,16 @@ def test_round_trip_cas_impact_pressure(frac: float, profile: str) -> None:
 def test_round_trip_cas_mach(data: st.DataObject, mach: float, profile: str) -> None:
     ps = data.draw(pressures(profile))
     cas = airdata.cas_from_mach(mach, ps, profile=profile, strict=False)
-    assume(not math.isnan(cas))  # CAS above 10 a0 (refused, see test_domain_errors)
+    if math.isnan(cas):
+        # refused only when CAS would exceed 10 a0 (the documented range): checked
+        # through the impact pressure, which the CAS limit is defined by
+        a0 = airdata.get_profile(profile).a0
+        qc = airdata.impact_pressure_from_mach(mach, ps, profile=profile)
+        q_lim = airdata.impact_pressure_from_cas(10.0 * a0, profile=profile)
+        assert qc >= q_lim * (1.0 - 1e-12), ("valid Mach refused", mach, ps, qc, q_lim)
+        return
     back = airdata.mach_from_cas(cas, ps, profile=profile, strict=False)
-    assume(not math.isnan(back))  # range ends: test_image_of_mach_10_accepted_*
+    assert not math.isnan(back), ("valid CAS refused", mach, ps, cas)
     assert_round_trip(mach, back, lambda y, ps, strict: airdata.mach_from_cas(
         y, ps, profile=profile, strict=strict), cas, {"ps": ps})
 
@@ -215,7 +233,7 @@ def test_round_trip_eas_mach(data: st.DataObject, mach: float, profile: str) -> 
     eas = airdata.eas_from_mach(mach, ps, profile=profile)
     assume(eas <= 4000.0)
     back = airdata.mach_from_eas(eas, ps, profile=profile, strict=False)
-    assume(not math.isnan(back))  # range ends: test_image_of_mach_10_accepted_*
+    assert not math.isnan(back), ("valid EAS refused", mach, ps, eas)
     assert_round_trip(mach, back, lambda y, ps, strict: airdata.mach_from_eas(
         y, ps, profile=profile, strict=strict), eas, {"ps": ps})
 
@@ -225,7 +243,7 @@ def test_round_trip_tas_mach(mach: float, sat: float, profile: str) -> None:
     tas = airdata.tas_from_mach(mach, sat, profile=profile)
     assume(tas <= 4000.0)
     back = airdata.mach_from_tas(tas, sat, profile=profile, strict=False)
-    assume(not math.isnan(back))  # range ends: test_image_of_mach_10_accepted_*
+    assert not math.isnan(back), ("valid TAS refused", mach, sat, tas)
     assert_round_trip(mach, back, lambda y, sat, strict: airdata.mach_from_tas(
         y, sat, profile=profile, strict=strict), tas, {"sat": sat})
 
@@ -235,7 +253,7 @@ def test_round_trip_sat_tat(sat: float, mach: float, recovery: float) -> None:
     tat = airdata.tat_from_sat(sat, mach, recovery)
     assume(tat <= 5000.0)
     back = airdata.sat_from_tat(tat, mach, recovery, strict=False)
-    assume(not math.isnan(back))
+    assert not math.isnan(back), ("valid TAT refused", sat, mach, recovery, tat)
     assert_round_trip(sat, back, lambda y, mach, recovery, strict: airdata.sat_from_tat(
         y, mach, recovery, strict=strict), tat, {"mach": mach, "recovery": recovery})
 
@@ -248,7 +266,9 @@ def test_round_trip_altimeter_setting(data: st.DataObject, profile: str) -> None
     # elevation such that the setting's pressure altitude hp - e stays in [-5000, 11000]
     e = data.draw(fl(max(-5000.0, hp - 11000.0), min(11000.0, hp + 5000.0)))
     setting = airdata.altimeter_setting(ps, e, profile=profile, strict=False)
-    assume(not math.isnan(setting))  # hp - e rounded just past an end
+    if math.isnan(setting):  # refused only when hp - e rounds just past an end
+        assert min(abs(hp - e + 5000.0), abs(hp - e - 11000.0)) <= 1e-9, (ps, e, hp)
+        return
     back = airdata.baro_corrected_altitude(ps, setting, profile=profile)
 
     def inv(y: float, ps: float, strict: bool) -> float:
@@ -256,7 +276,9 @@ def test_round_trip_altimeter_setting(data: st.DataObject, profile: str) -> None
 
     assert_round_trip(e, back, inv, setting, {"ps": ps})
     setting2 = airdata.altimeter_setting(ps, back, profile=profile, strict=False)
-    assume(not math.isnan(setting2))
+    if math.isnan(setting2):
+        assert min(abs(hp - back + 5000.0), abs(hp - back - 11000.0)) <= 1e-9, (ps, back, hp)
+        return
 
     def fwd(y: float, ps: float, strict: bool) -> float:
         return airdata.altimeter_setting(ps, y, profile=profile, strict=strict)
@@ -567,7 +589,10 @@ def test_fixed_eas_gives_fixed_dynamic_pressure(data: st.DataObject, eas: float,
     prof = airdata.get_profile(profile)
     ps = data.draw(pressures(profile))
     mach = airdata.mach_from_eas(eas, ps, profile=profile, strict=False)
-    assume(not math.isnan(mach))  # beyond Mach 10 at very low pressure
+    if math.isnan(mach):  # refused only beyond Mach 10 (at very low pressure)
+        eas10 = airdata.eas_from_mach(10.0, ps, profile=profile)
+        assert eas >= eas10 * (1.0 - 1e-12), ("valid EAS refused", eas, ps, eas10)
+        return
     q = airdata.dynamic_pressure(mach, ps, profile=profile)
     # mach (2 eps) squared (4 eps), q's own rounding (2 eps), the reference (1.5 eps)
     assert q == pytest.approx(0.5 * prof.rho0 * eas * eas, rel=8 * EPS, abs=0.0)
@@ -757,3 +782,16 @@ def test_non_strict_nan_exactly_at_bad_elements(pub: Pub, data: st.DataObject) -
                 assert math.isnan(arr[i]), (key, i)
             else:
                 assert bits(arr[i]) == bits(strict_one[key]), (key, i)
+
+
+@pytest.mark.parametrize("profile", PROFILES)
+def test_setting_at_the_11000_m_end_is_accepted_back(profile: str) -> None:
+    """A setting for pressure_altitude(ps) - elevation = 11 000 m lies a few eps below the
+    correctly rounded pressure at 11 000 m (ALT-4 in closed form); the setting range's
+    slack lets baro_corrected_altitude take it (found by the round trip above)."""
+    ps = airdata.pressure_at_altitude(10000.0, profile=profile)
+    setting = airdata.altimeter_setting(ps, -1000.0, profile=profile)
+    if profile == "icao":  # here 2 ulp below (for us1976 this point rounds exactly)
+        assert setting < airdata.get_profile(profile).base_pressure[1]
+    back = airdata.baro_corrected_altitude(ps, setting, profile=profile)
+    assert back == pytest.approx(-1000.0, abs=1e-9)

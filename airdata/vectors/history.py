@@ -34,6 +34,11 @@ ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
         "stall and maximum-operating-speed branches with inputs that are subnormal in "
         "binary32 only (weight or wing area 1e-40, cas 1e-16 with M 1e-15), so a "
         "binary32 build reaches them too.",
+        "The altimeter-setting range (the ps input of altimeter_setting, the setting "
+        "input of baro_corrected_altitude) is widened by 8 eps relative at both ends: "
+        "a setting computed at pressure_altitude(ps) - elevation = 11 000 m lies up to "
+        "4.4 eps below the correctly rounded pressure at 11 000 m and was refused by "
+        "baro_corrected_altitude; cases near those ends change status.",
     )),
     ("1.0.0", 1, (
         "First suite: 30 catalogue functions (every public function of airdata, "

@@ -175,8 +175,8 @@
 #define AD_GEOMETRIC_HI 0x1.4feff3f1a9d9ap+16
 #define AD_PRESSURE_LO 0x1.7e58448f3e61ep-2
 #define AD_PRESSURE_HI 0x1.5b0b7cdc09e59p+17
-#define AD_SETTING_LO 0x1.61a04182426c6p+14
-#define AD_SETTING_HI 0x1.5b0b7cdc09e59p+17
+#define AD_SETTING_LO 0x1.61a04182426bbp+14
+#define AD_SETTING_HI 0x1.5b0b7cdc09e64p+17
 #define AD_LAYER1_BASE 0x1.57cp+13
 #define AD_LAYER_0 { 0x0p+0, (-0x1.a9fbe76c8b439p-8), 0x1.2026666666666p+8, 0x1.8bcdp+16, (-0x1.7a7490a837d9ap-16), (-0x1.5060463496f6fp+2), 0x0p+0, 0x1.85a8bb537afbap-3, (-0x1.0794200304abfp+13), 0x1.39998b702a531p+0, 0x1.e1378e4dbb2dfp-3, 0x1.999999999999ap-46, (-0x1.604189374bc6ap-62), 0x0p+0, 1 }
 #define AD_LAYER_1 { 0x1.57cp+13, 0x0p+0, 0x1.b14cccccccccdp+7, 0x1.61a04182426c6p+14, 0x0p+0, 0x0p+0, 0x1.4ab2527ecf93dp-13, 0x0p+0, (-0x1.8c59eba3b33f2p+12), 0x1.74a6dc87e48dfp-2, 0x0p+0, (-0x1.999999999999ap-48), 0x0p+0, 0x1.b3595081e6775p-41, 0 }
@@ -342,8 +342,8 @@
 #define AD_GEOMETRIC_HI 0x1.4feff3f1a9d9ap+16
 #define AD_PRESSURE_LO 0x1.7e5767e637bf6p-2
 #define AD_PRESSURE_HI 0x1.5b0b85d9f9677p+17
-#define AD_SETTING_LO 0x1.61a0290eaa6cfp+14
-#define AD_SETTING_HI 0x1.5b0b85d9f9677p+17
+#define AD_SETTING_LO 0x1.61a0290eaa6c4p+14
+#define AD_SETTING_HI 0x1.5b0b85d9f9682p+17
 #define AD_LAYER1_BASE 0x1.57cp+13
 #define AD_LAYER_0 { 0x0p+0, (-0x1.a9fbe76c8b439p-8), 0x1.2026666666666p+8, 0x1.8bcdp+16, (-0x1.7a7490a837d9ap-16), (-0x1.506055b8d4c87p+2), 0x0p+0, 0x1.85a8a95a06c93p-3, (-0x1.079413da70654p+13), 0x1.399999e771772p+0, 0x1.e13772e3d4507p-3, 0x1.999999999999ap-46, (-0x1.604189374bc6ap-62), 0x0p+0, 1 }
 #define AD_LAYER_1 { 0x1.57cp+13, 0x0p+0, 0x1.b14cccccccccdp+7, 0x1.61a0290eaa6cfp+14, 0x0p+0, 0x0p+0, 0x1.4ab261bffbc74p-13, 0x0p+0, (-0x1.8c59d95b38236p+12), 0x1.74a6d3f4226e3p-2, 0x0p+0, (-0x1.999999999999ap-48), 0x0p+0, (-0x1.b1a454026ae12p-41), 0 }
