@@ -15,7 +15,8 @@ from types import ModuleType
 
 import pytest
 
-from airdata.portcheck.results import ResultsError, judge_results, parse_results
+from airdata.portcheck import verdict
+from airdata.portcheck.results import ResultsError, arrays, parse_results
 from airdata.portcheck.suite import load_cases
 from airdata.vectors.export import export_cases, format_number
 
@@ -48,11 +49,18 @@ def suite():  # type: ignore[no-untyped-def]
 
 
 def _verdict(text: str, suite) -> tuple[list[str], bool]:  # type: ignore[no-untyped-def]
+    """What ``port verify`` judges: the file's problems, then verdict.judge of its arrays;
+    each failing case with the results line it came from."""
     parsed = parse_results(text, suite)
-    rows = judge_results(suite, parsed, "double")
+    raw = {fc.name: arrays(fc, parsed)[:2] for fc in suite.functions.values()}
+    report = verdict.judge(suite, raw, "double")
     msgs = [str(p) for p in parsed.problems]
-    msgs += [f"{f.case_id}: {'; '.join(f.reasons)}" for r in rows for f in r.failures]
-    return msgs, (not parsed.problems) and all(r.ok for r in rows)
+    for r in report.functions:
+        for f in r.failures:
+            row = parsed.rows.get(f.case_id)
+            where = "no good result line" if row is None else f"results line {row[0]}"
+            msgs.append(f"{f.case_id}: {'; '.join(f.reasons)}; {where}")
+    return msgs, (not parsed.problems) and report.ok
 
 
 def test_export_is_deterministic_and_counts_the_manifest(cases: tuple[str, int]) -> None:

@@ -12,11 +12,14 @@ one line per case: case id, status code, every output (C99 hex float, decimal, `
 ``#`` are ignored (a target may print its own banner as comments).  Every problem is
 kept with its line number: a malformed line, a duplicate id, an id the suite does not
 have, a case with no line, a missing or wrong ``end`` line (a truncated file).  None of
-them is ever counted as a pass: :func:`judge_results` fails every case touched by one.
+them is ever counted as a pass.
 
-:func:`judge_results` turns the lines into the per-function output and status arrays
-that ``port check`` feeds its comparison, and calls that comparison (``compare.judge``)
-unchanged; missing, duplicate and malformed cases are added to its result as failures.
+:func:`arrays` turns the lines into the per-function output and status arrays that
+``port check`` gets from a compiled port; ``port verify`` hands them to
+:func:`airdata.portcheck.verdict.judge` unchanged.  A case without a good line (missing,
+duplicate, malformed) gets NaN outputs and status -1, so it fails there (a binary32
+case that is skipped or lenient may not, but its missing line is a problem of the file,
+and ``port verify`` fails on any problem).
 
 An engineering and verification aid, not certified flight software.
 """
@@ -29,11 +32,10 @@ from pathlib import Path
 
 import numpy as np
 
-from .compare import CaseFailure, CheckResult, judge
 from .suite import FunctionCases, LoadedSuite
 
 __all__ = ["RESULTS_VERSION", "ResultsError", "Problem", "ParsedResults", "parse_results",
-           "read_results", "judge_results"]
+           "read_results", "arrays"]
 
 #: Version of the ``airdata-results`` format.
 RESULTS_VERSION = 1
@@ -241,37 +243,3 @@ def arrays(fc: FunctionCases, parsed: ParsedResults
             have[i] = True
     return y, st, have
 
-
-def _subset(fc: FunctionCases, keep: np.ndarray) -> FunctionCases:
-    return FunctionCases(fc.name, fc.c_function, fc.inputs, fc.outputs,
-                         [c for c, k in zip(fc.ids, keep, strict=True) if k], fc.x[keep],
-                         fc.expected[keep], fc.scale[keep], fc.status[keep], fc.b32[keep])
-
-
-def judge_results(suite: LoadedSuite, parsed: ParsedResults, precision: str
-                  ) -> list[CheckResult]:
-    """Judge parsed results exactly as ``port check`` judges a port, function by function.
-
-    The cases with a good result line go through ``compare.judge`` unchanged; every
-    case without one (missing, duplicate, malformed) is a failed case.  Each failure
-    names the results line of its case.
-    """
-    eps = suite.eps_binary32 if precision == "single" else suite.eps_binary64
-    out = []
-    for fc in suite.functions.values():
-        y, st, have = arrays(fc, parsed)
-        res = judge(_subset(fc, have), precision, y[have], st[have], suite.k, eps)
-        for f in res.failures:
-            f.reasons.append(f"results line {parsed.rows[f.case_id][0]}")
-        absent = [i for i in range(fc.count) if not have[i]]
-        res.cases = fc.count
-        res.failed += len(absent)
-        for i in absent:
-            cid = fc.ids[i]
-            line = parsed.bad_ids.get(cid)
-            why = ("no result line" if line is None
-                   else f"results line {line}: malformed or duplicated")
-            inputs = {name: float(fc.x[i, j]) for j, (name, _) in enumerate(fc.inputs)}
-            res.failures.append(CaseFailure(cid, inputs, [why]))
-        out.append(res)
-    return out
