@@ -31,8 +31,9 @@ STATUS_NAMES = {0: "OK", 1: "INVALID_INPUT", 2: "OUT_OF_RANGE", 3: "NO_CONVERGEN
 
 
 def status_name(code: int) -> str:
-    """Name of a status code (the number itself when it is not one of ours)."""
-    return STATUS_NAMES.get(int(code), f"status {int(code)}")
+    """Name of a status code; the number itself when it is not one of ours (-1: a case
+    with no good results line, :func:`airdata.portcheck.results.arrays`)."""
+    return STATUS_NAMES.get(int(code), str(int(code)))
 
 
 @dataclass

@@ -33,9 +33,10 @@ from pathlib import Path
 import numpy as np
 
 from .suite import FunctionCases, LoadedSuite
+from .verdict import Report
 
 __all__ = ["RESULTS_VERSION", "ResultsError", "Problem", "ParsedResults", "parse_results",
-           "read_results", "arrays"]
+           "read_results", "arrays", "add_line_numbers"]
 
 #: Version of the ``airdata-results`` format.
 RESULTS_VERSION = 1
@@ -204,9 +205,15 @@ def parse_results(text: str, suite: LoadedSuite,
     elif text and not text.endswith("\n"):
         res.problems.append(Problem(len(lines), None, "the last line has no newline"))
     for fc in suite.functions.values():
+        before: tuple[str, int] | None = None  # the last case of fc that has a line
         for cid in fc.ids:
-            if cid not in res.rows and cid not in res.bad_ids:
-                res.problems.append(Problem(0, cid, f"no result line ({fc.name})"))
+            line = res.rows[cid][0] if cid in res.rows else res.bad_ids.get(cid)
+            if line is not None:
+                before = (cid, line)
+                continue
+            where = (f"; its place is after line {before[1]} (case {before[0]})"
+                     if before is not None else "")
+            res.problems.append(Problem(0, cid, f"no result line ({fc.name}){where}"))
     return res
 
 
@@ -243,3 +250,38 @@ def arrays(fc: FunctionCases, parsed: ParsedResults
             have[i] = True
     return y, st, have
 
+
+
+def add_line_numbers(report: Report, parsed: ParsedResults) -> int:
+    """Name, in every failing case of ``report``, the results line it was judged from.
+
+    Appends ``results line N`` to the reasons of a case judged from line N, ``results
+    line N: malformed or duplicated`` or ``no result line`` to those of a case without a
+    good line.  The reasons go into every output of the report (text, JSON, JUnit, CSV,
+    HTML).
+
+    Parameters
+    ----------
+    report : Report
+        :func:`airdata.portcheck.verdict.judge` of :func:`arrays` of ``parsed``.
+    parsed : ParsedResults
+        The results file the report judged.
+
+    Returns
+    -------
+    int
+        The number of failing cases annotated.
+    """
+    n = 0
+    for fv in report.functions:
+        for f in fv.failures:
+            row = parsed.rows.get(f.case_id)
+            bad = parsed.bad_ids.get(f.case_id)
+            if row is not None:
+                f.reasons.append(f"results line {row[0]}")
+            elif bad is not None:
+                f.reasons.append(f"results line {bad}: malformed or duplicated")
+            else:
+                f.reasons.append("no result line")
+            n += 1
+    return n
