@@ -226,6 +226,17 @@ def test_verify_command_names_the_line(verify_runs: dict, damage: str) -> None:
         assert f"line {n} case {cid}: " in said
 
 
+def test_a_line_cut_after_its_id_is_named(results: str, suite) -> None:  # type: ignore[no-untyped-def]
+    lines = results.split("\n")
+    cid = suite.functions["atmosphere"].ids[0]
+    n = _line_of(results, cid)
+    msgs, ok = _verdict("\n".join([*lines[: n - 1], cid]), suite)
+    assert not ok
+    assert f"line {n} case {cid}: malformed line: no status and no outputs (the line is " \
+           "cut short)" in msgs
+    assert f"line {n}: no 'end N' line: the file is truncated (or the run stopped early)" in msgs
+
+
 def test_unknown_id_and_bad_version_are_refused(results: str, suite) -> None:  # type: ignore[no-untyped-def]
     lines = results.split("\n")
     lines.insert(3, "ffffffffffff 0 0x1p+0")

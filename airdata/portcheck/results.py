@@ -185,7 +185,9 @@ def parse_results(text: str, suite: LoadedSuite,
             res.bad_ids[cid] = first_line
             continue
         why = None
-        if len(toks) != 2 + k:
+        if len(toks) < 2:
+            why = "no status and no outputs (the line is cut short)"
+        elif len(toks) != 2 + k:
             why = f"{len(toks) - 2} output(s), {fname} has {k}"
         elif not _STATUS.fullmatch(toks[1]):
             why = f"status {_show(toks[1])} is not an integer"
