@@ -1,6 +1,10 @@
 """Case export and result import: export -> an implementation writes results ->
-``airdata port verify`` judges them as ``port check`` does.  Every damaged results file
-is reported with case id and line number and fails; the export is deterministic and has
+``airdata port verify`` judges them as ``port check`` does (verdict.judge).  Every
+damaged results file (a malformed token, a changed digit, a deleted, duplicated or
+unknown line, a changed status, a cut last line) and a port wrong in one constant fails
+with exit status 1 and the case id; the line number is named by the file's problems, or
+for a case judged wrong from a well-formed line by results.add_line_numbers (strict
+xfail at the command until port verify calls it).  The export is deterministic and has
 the manifest's case count (vectors/manifest.json)."""
 
 from __future__ import annotations
