@@ -12,8 +12,9 @@ import numpy as np
 import pytest
 
 from airdata.cli import main
+from airdata.portcheck import verdict
 from airdata.portcheck.build import build_port, bundled_port
-from airdata.portcheck.compare import check_port, judge
+from airdata.portcheck.compare import judge
 from airdata.portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load_cases
 
 ROOT = Path(__file__).resolve().parents[1]
@@ -78,12 +79,15 @@ def test_judge_binary32_levels() -> None:
 # --- the bundled port ---------------------------------------------------------------
 
 @pytest.fixture(scope="session")
-def bundled_results(suite: LoadedSuite) -> dict[str, list]:
+def bundled_results(suite: LoadedSuite) -> dict[str, verdict.Report]:
     out = {}
     for precision in ("double", "single"):
         port = build_port(bundled_port(), list(suite.functions.values()), precision)
-        out[precision] = check_port(port, suite)
-        port.close()
+        try:
+            raw = {fc.name: port.run(fc) for fc in suite.functions.values()}
+        finally:
+            port.close()
+        out[precision] = verdict.judge(suite, raw, precision)
     return out
 
 
@@ -93,12 +97,13 @@ def test_bundled_port_passes_every_vector(suite: LoadedSuite, bundled_results: d
                                           precision: str) -> None:
     manifest = json.loads((VECTORS / "manifest.json").read_text())
     counts = {e["function"]: e["valid"] + e["invalid"] for e in manifest["functions"]}
-    rows = bundled_results[precision]
+    rows = bundled_results[precision].functions
     assert [r.function for r in rows] == list(counts)
     for r in rows:
         assert r.cases == counts[r.function]
+        assert r.implemented and r.verdict == "pass"
         assert r.ok, (r.function, precision, [f.reasons for f in r.failures[:3]])
-        assert r.worst <= 1.0
+        assert r.reference is not None and r.reference.worst <= 1.0
     if precision == "single":
         assert sum(r.skipped for r in rows) < sum(counts.values()) // 20
 

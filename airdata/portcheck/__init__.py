@@ -2,25 +2,40 @@
 
 An engineering and verification aid, not certified flight software.
 
-The ``airdata port check`` command runs every case of a vector suite (``vectors/``,
-written by ``airdata vectors build``) through a C port that implements
+``airdata port check`` runs every case of a vector suite (``vectors/``, written by
+``airdata vectors build``) through a C port that implements
 ``bindings/c/include/airdata.h``: the bundled port, a user's own C sources, or a
-prebuilt library.  The port is compiled on the fly with cffi, together with a small
-generated C loop per function (:mod:`airdata.portcheck.build`), in binary64 and/or
-binary32, and every output is judged by the suite's own rule (:mod:`airdata.vectors.scale`)::
+prebuilt library, compiled on the fly with cffi in binary64 and/or binary32.
+``airdata port verify`` judges instead a results file that a port running anywhere
+wrote from the cases of ``airdata vectors export`` (docs/exchange.md).  Both judge
+every output by the suite's own rule (:mod:`airdata.vectors.scale`)::
 
     |got - expected| <= k * eps * scale
 
 with the case's status compared exactly (binary32: as the case's ``binary32_check``
-says).  Python API:
+says), and optionally against the user's accuracy requirements.  Modules:
 
-- :func:`airdata.portcheck.suite.load_cases` reads and checks a suite (checksums,
-  schema) into arrays;
-- :func:`airdata.portcheck.build.build_port` compiles a port and returns a
-  :class:`~airdata.portcheck.build.Port`;
-- :func:`airdata.portcheck.compare.check_port` runs the cases and returns a
-  :class:`~airdata.portcheck.compare.CheckResult` per function and precision;
-- :mod:`airdata.portcheck.report` renders the table and the JSON report.
+- :mod:`~airdata.portcheck.suite`: :func:`~airdata.portcheck.suite.load_cases` reads
+  and checks a suite (checksums, schema) into arrays;
+- :mod:`~airdata.portcheck.build`: :func:`~airdata.portcheck.build.build_port` compiles
+  a port and returns a :class:`~airdata.portcheck.build.Port` whose ``run`` gives the
+  outputs and statuses of a function's cases;
+- :mod:`~airdata.portcheck.results`: reads an ``airdata-results`` file into the same
+  arrays, every problem of the file with its line number;
+- :mod:`~airdata.portcheck.compare`: :func:`~airdata.portcheck.compare.judge`, the
+  reference-equivalent level (the roundoff bound above) of one function;
+- :mod:`~airdata.portcheck.requirements`: accuracy requirements in engineering units
+  over an envelope (TOML, docs/requirements.md);
+- :mod:`~airdata.portcheck.verdict`: :func:`~airdata.portcheck.verdict.judge`, both
+  levels per function with engineering-unit errors, margins and bands, as a
+  :class:`~airdata.portcheck.verdict.Report`;
+- :mod:`~airdata.portcheck.evidence`: the text summary, JSON report (its schema is
+  ``report.schema.json``), JUnit XML, CSV of failures, HTML page and plots;
+- :mod:`~airdata.portcheck.coverage`: MC/DC, branch, line and region coverage of a
+  port by the suite (clang 19, ``airdata port coverage``);
+- :mod:`~airdata.portcheck.copy`: ``airdata port copy``, the bundled port into a
+  firmware tree;
+- :mod:`~airdata.portcheck.commands`: the ``airdata port`` command line.
 """
 
 from __future__ import annotations

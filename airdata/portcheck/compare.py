@@ -16,25 +16,24 @@ An engineering and verification aid, not certified flight software.
 
 from __future__ import annotations
 
-from collections.abc import Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
 import numpy as np
 from numpy.typing import NDArray
 
-from .build import Port
-from .suite import B32_CODES, FunctionCases, LoadedSuite
+from .suite import B32_CODES, FunctionCases
 
-__all__ = ["CaseFailure", "CheckResult", "judge", "check_port"]
+__all__ = ["CaseFailure", "CheckResult", "judge", "status_name"]
 
 STATUS_NAMES = {0: "OK", 1: "INVALID_INPUT", 2: "OUT_OF_RANGE", 3: "NO_CONVERGENCE",
                 4: "IMPACT_PRESSURE_ZEROED"}
 
 
 def status_name(code: int) -> str:
-    """Name of a status code (the number itself when it is not one of ours)."""
-    return STATUS_NAMES.get(int(code), f"status {int(code)}")
+    """Name of a status code; the number itself when it is not one of ours (-1: a case
+    with no good results line, :func:`airdata.portcheck.results.arrays`)."""
+    return STATUS_NAMES.get(int(code), str(int(code)))
 
 
 @dataclass
@@ -178,14 +177,3 @@ def judge(fc: FunctionCases, precision: str, y: NDArray[np.float64], st: NDArray
         res.failures.append(CaseFailure(fc.ids[i], _inputs(fc, int(i)), reasons))
     return res
 
-
-def check_port(port: Port, suite: LoadedSuite, names: Sequence[str] | None = None
-               ) -> list[CheckResult]:
-    """Run the suite's cases (all functions, or ``names``) through ``port``."""
-    eps = suite.eps_binary32 if port.precision == "single" else suite.eps_binary64
-    out = []
-    for name in names if names is not None else port.functions:
-        fc = suite.functions[name]
-        y, st = port.run(fc)
-        out.append(judge(fc, port.precision, y, st, suite.k, eps))
-    return out

@@ -12,11 +12,14 @@ one line per case: case id, status code, every output (C99 hex float, decimal, `
 ``#`` are ignored (a target may print its own banner as comments).  Every problem is
 kept with its line number: a malformed line, a duplicate id, an id the suite does not
 have, a case with no line, a missing or wrong ``end`` line (a truncated file).  None of
-them is ever counted as a pass: :func:`judge_results` fails every case touched by one.
+them is ever counted as a pass.
 
-:func:`judge_results` turns the lines into the per-function output and status arrays
-that ``port check`` feeds its comparison, and calls that comparison (``compare.judge``)
-unchanged; missing, duplicate and malformed cases are added to its result as failures.
+:func:`arrays` turns the lines into the per-function output and status arrays that
+``port check`` gets from a compiled port; ``port verify`` hands them to
+:func:`airdata.portcheck.verdict.judge` unchanged.  A case without a good line (missing,
+duplicate, malformed) gets NaN outputs and status -1, so it fails there (a binary32
+case that is skipped or lenient may not, but its missing line is a problem of the file,
+and ``port verify`` fails on any problem).
 
 An engineering and verification aid, not certified flight software.
 """
@@ -29,11 +32,11 @@ from pathlib import Path
 
 import numpy as np
 
-from .compare import CaseFailure, CheckResult, judge
 from .suite import FunctionCases, LoadedSuite
+from .verdict import Report
 
 __all__ = ["RESULTS_VERSION", "ResultsError", "Problem", "ParsedResults", "parse_results",
-           "read_results", "judge_results"]
+           "read_results", "arrays", "add_line_numbers"]
 
 #: Version of the ``airdata-results`` format.
 RESULTS_VERSION = 1
@@ -182,7 +185,9 @@ def parse_results(text: str, suite: LoadedSuite,
             res.bad_ids[cid] = first_line
             continue
         why = None
-        if len(toks) != 2 + k:
+        if len(toks) < 2:
+            why = "no status and no outputs (the line is cut short)"
+        elif len(toks) != 2 + k:
             why = f"{len(toks) - 2} output(s), {fname} has {k}"
         elif not _STATUS.fullmatch(toks[1]):
             why = f"status {_show(toks[1])} is not an integer"
@@ -202,9 +207,15 @@ def parse_results(text: str, suite: LoadedSuite,
     elif text and not text.endswith("\n"):
         res.problems.append(Problem(len(lines), None, "the last line has no newline"))
     for fc in suite.functions.values():
+        before: tuple[str, int] | None = None  # the last case of fc that has a line
         for cid in fc.ids:
-            if cid not in res.rows and cid not in res.bad_ids:
-                res.problems.append(Problem(0, cid, f"no result line ({fc.name})"))
+            line = res.rows[cid][0] if cid in res.rows else res.bad_ids.get(cid)
+            if line is not None:
+                before = (cid, line)
+                continue
+            where = (f"; its place is after line {before[1]} (case {before[0]})"
+                     if before is not None else "")
+            res.problems.append(Problem(0, cid, f"no result line ({fc.name}){where}"))
     return res
 
 
@@ -242,36 +253,37 @@ def arrays(fc: FunctionCases, parsed: ParsedResults
     return y, st, have
 
 
-def _subset(fc: FunctionCases, keep: np.ndarray) -> FunctionCases:
-    return FunctionCases(fc.name, fc.c_function, fc.inputs, fc.outputs,
-                         [c for c, k in zip(fc.ids, keep, strict=True) if k], fc.x[keep],
-                         fc.expected[keep], fc.scale[keep], fc.status[keep], fc.b32[keep])
 
+def add_line_numbers(report: Report, parsed: ParsedResults) -> int:
+    """Name, in every failing case of ``report``, the results line it was judged from.
 
-def judge_results(suite: LoadedSuite, parsed: ParsedResults, precision: str
-                  ) -> list[CheckResult]:
-    """Judge parsed results exactly as ``port check`` judges a port, function by function.
+    Appends ``results line N`` to the reasons of a case judged from line N, ``results
+    line N: malformed or duplicated`` or ``no result line`` to those of a case without a
+    good line.  The reasons go into every output of the report (text, JSON, JUnit, CSV,
+    HTML).
 
-    The cases with a good result line go through ``compare.judge`` unchanged; every
-    case without one (missing, duplicate, malformed) is a failed case.  Each failure
-    names the results line of its case.
+    Parameters
+    ----------
+    report : Report
+        :func:`airdata.portcheck.verdict.judge` of :func:`arrays` of ``parsed``.
+    parsed : ParsedResults
+        The results file the report judged.
+
+    Returns
+    -------
+    int
+        The number of failing cases annotated.
     """
-    eps = suite.eps_binary32 if precision == "single" else suite.eps_binary64
-    out = []
-    for fc in suite.functions.values():
-        y, st, have = arrays(fc, parsed)
-        res = judge(_subset(fc, have), precision, y[have], st[have], suite.k, eps)
-        for f in res.failures:
-            f.reasons.append(f"results line {parsed.rows[f.case_id][0]}")
-        absent = [i for i in range(fc.count) if not have[i]]
-        res.cases = fc.count
-        res.failed += len(absent)
-        for i in absent:
-            cid = fc.ids[i]
-            line = parsed.bad_ids.get(cid)
-            why = ("no result line" if line is None
-                   else f"results line {line}: malformed or duplicated")
-            inputs = {name: float(fc.x[i, j]) for j, (name, _) in enumerate(fc.inputs)}
-            res.failures.append(CaseFailure(cid, inputs, [why]))
-        out.append(res)
-    return out
+    n = 0
+    for fv in report.functions:
+        for f in fv.failures:
+            row = parsed.rows.get(f.case_id)
+            bad = parsed.bad_ids.get(f.case_id)
+            if row is not None:
+                f.reasons.append(f"results line {row[0]}")
+            elif bad is not None:
+                f.reasons.append(f"results line {bad}: malformed or duplicated")
+            else:
+                f.reasons.append("no result line")
+            n += 1
+    return n
