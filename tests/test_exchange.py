@@ -3,9 +3,8 @@
 damaged results file (a malformed token, a changed digit, a deleted, duplicated or
 unknown line, a changed status, a cut last line) and a port wrong in one constant fails
 with exit status 1 and the case id; the line number is named by the file's problems, or
-for a case judged wrong from a well-formed line by results.add_line_numbers (strict
-xfail at the command until port verify calls it).  The export is deterministic and has
-the manifest's case count (vectors/manifest.json)."""
+for a case judged wrong from a well-formed line by results.add_line_numbers.  The export
+is deterministic and has the manifest's case count (vectors/manifest.json)."""
 
 from __future__ import annotations
 
@@ -213,12 +212,7 @@ def test_verify_command_fails_and_names_the_case(verify_runs: dict, damage: str)
         assert f"  case {cid}: cas: got " in said
 
 
-@pytest.mark.parametrize("damage", [
-    *[d for d in DAMAGES if d not in ("digit", "status")],
-    *[pytest.param(d, marks=pytest.mark.xfail(
-        strict=True, reason="port verify (commands.cmd_verify) does not yet call "
-        "results.add_line_numbers: a case judged wrong from a well-formed line is named "
-        "by id only")) for d in ("digit", "status", "constant")]])
+@pytest.mark.parametrize("damage", [*DAMAGES, "constant"])
 def test_verify_command_names_the_line(verify_runs: dict, damage: str) -> None:
     rc, said, cid, n = verify_runs[damage]
     if damage in ("digit", "status", "constant"):

@@ -211,7 +211,7 @@ def cmd_check(args: argparse.Namespace) -> int:
 
 def cmd_verify(args: argparse.Namespace) -> int:
     """``port verify``: judge a results file as ``port check`` judges a port."""
-    from .results import ResultsError, arrays, read_results
+    from .results import ResultsError, add_line_numbers, arrays, read_results
 
     try:
         suite = load_cases(args.suite, args.only or None, skip_tags=_skip_tags(args))
@@ -243,6 +243,7 @@ def cmd_verify(args: argparse.Namespace) -> int:
         return 2
     raw = {fc.name: arrays(fc, parsed)[:2] for fc in suite.functions.values()}
     report = judge(suite, raw, precision, req)
+    add_line_numbers(report, parsed)
     label = f"results file {args.results}"
     print(render_summary([report], label))
     if parsed.problems:
