@@ -5,7 +5,7 @@ The format is specified in docs/exchange.md::
     airdata-results 1 precision binary64
     931c7eb9eda7 0 0x1.b94cccccccccdp+7 0x1.5b0b85d9f9676p+17 ...
     ...
-    end 29303
+    end 35003
 
 one line per case: case id, status code, every output (C99 hex float, decimal, ``nan``,
 ``inf``, ``-inf``; ``-nan`` as printf writes it).  Blank lines and lines starting with

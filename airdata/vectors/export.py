@@ -3,11 +3,11 @@
 The format (``airdata-cases 1``) is specified in docs/exchange.md.  A line file::
 
     airdata-cases 1
-    suite 1.0.0 profile icao precision binary64 numbers hex cases 29303
+    suite 2.0.0 profile icao precision binary64 numbers hex cases 35003
     function atmosphere inputs 2 h dT outputs 6 temperature pressure ...
     case 931c7eb9eda7 atmosphere -0x1.388p+12 -0x1.9p+6
     ...
-    end 29303
+    end 35003
 
 Inputs are C99 hex floats (``float.hex``) of the chosen precision: under binary32 each
 input is first rounded to the nearest binary32 value, as the C port's ``(ad_real)``
