@@ -53,6 +53,17 @@ def _esc(text: object, n: int = _MAX) -> str:
     return html.escape(_bounded(text, n), quote=True)
 
 
+#: What a check of outputs and statuses does not cover: the rest of the interface contract
+#: of airdata.h / airdata_batch.h, which the C vector runner checks (on the host with
+#: ``make -C DIR runner``, on a target in judge-on-target mode; docs/exchange.md).
+CHECKS_NOT_RUN: tuple[str, ...] = (
+    "the NULL rule: every output pointer passed as NULL returns AD_INVALID_INPUT",
+    "the batch entry points ad_<name>_n of airdata_batch.h and ad_check_n",
+)
+CHECKS_NOT_RUN_NOTE = ("not checked here (the vector runner checks them: make -C DIR runner, "
+                       "or on the target, docs/exchange.md): " + "; ".join(CHECKS_NOT_RUN))
+
+
 def sha256_file(path: str | Path) -> str:
     """SHA-256 of a file's bytes (hex)."""
     h = hashlib.sha256()
@@ -180,6 +191,7 @@ def report_json(reports: Sequence[Report], env: dict[str, Any],
         "format": REPORT_FORMAT,
         "tool": f"airdata {__version__} port check",
         "caution": CAUTION,
+        "checks_not_run": list(CHECKS_NOT_RUN),
         "level": level,
         "levels": {
             LEVEL_REFERENCE: f"|got - expected| <= {first.suite.k:g} * eps * scale, status "
@@ -304,6 +316,7 @@ def render_summary(reports: Sequence[Report], label: str, max_listed: int = 5) -
     else:
         lines.append(f"PASS: all {n_impl} implemented function check(s) pass{tail} "
                      f"[level: {first.level}]")
+    lines.append(CHECKS_NOT_RUN_NOTE)
     lines.append(CAUTION)
     return "\n".join(lines)
 
@@ -454,7 +467,9 @@ def write_html(reports: Sequence[Report], env: dict[str, Any], path: str | Path)
             ("port", env["port"]["label"]),
             ("suite", f"{first.suite.suite_version} ({first.suite.profile}), manifest "
                       f"SHA-256 {_manifest_sha(first)}"),
-            ("date (UTC)", env["date_utc"]), ("airdata", env["airdata_version"])]
+            ("date (UTC)", env["date_utc"]), ("airdata", env["airdata_version"]),
+            ("not checked here", "; ".join(CHECKS_NOT_RUN) + " (the vector runner checks "
+                                 "them)")]
     for k, v in rows:
         c = f" class=\"{_cls(v.lower())}\"" if k == "verdict" else ""
         h.append(f"<tr><th>{_esc(k)}</th><td{c}>{_esc(v)}</td></tr>")
