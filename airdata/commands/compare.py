@@ -38,6 +38,9 @@ F64 = NDArray[np.float64]
 #: Outputs of the chain, in the order of the catalogue.
 _OUTPUTS = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", "cas", "eas",
             "tas", "sat", "density", "density_altitude", "dynamic_pressure")
+_SI_UNITS = {"pressure_altitude": "m", "baro_altitude": "m", "impact_pressure": "Pa",
+             "mach": "1", "cas": "m/s", "eas": "m/s", "tas": "m/s", "sat": "K",
+             "density": "kg/m3", "density_altitude": "m", "dynamic_pressure": "Pa"}
 
 
 def available() -> bool:
@@ -120,17 +123,53 @@ class Comparison:
     disagreements: int = 0
     kept: list[Disagreement] = field(default_factory=list)
     worst: dict[str, float] = field(default_factory=dict)
+    units: dict[str, str] = field(default_factory=dict)
+    worst_abs: dict[str, tuple[float, int]] = field(default_factory=dict)
+
+    def unit(self, key: str) -> str:
+        """The unit an output is reported in (``units``, else its SI unit)."""
+        return self.units.get(key, _SI_UNITS.get(key, "1"))
+
+    def in_units(self, key: str, value: float, difference: bool = False) -> float:
+        """An output value (or a difference of two) from SI into :meth:`unit`."""
+        from .. import units as u
+
+        unit = self.unit(key)
+        if difference:
+            return value / (float(u.to_si(1.0, unit)) - float(u.to_si(0.0, unit)))
+        return float(u.from_si(value, unit))
+
+    def difference_unit(self, key: str) -> str:
+        """The unit of a difference of ``key`` (a temperature difference in degC is K)."""
+        unit = self.unit(key)
+        return "K" if unit == "degC" else unit
 
     def as_dict(self) -> dict[str, Any]:
         """A JSON-ready summary."""
         from ..vectors.scale import EPS_BINARY32, EPS_BINARY64, K
 
         eps = EPS_BINARY64 if self.precision == "double" else EPS_BINARY32
+        first = []
+        for d in self.kept:
+            rec = d.as_dict()
+            if d.output != "status":
+                rec["unit"] = self.unit(d.output)
+                rec["reference_in_unit"] = self.in_units(d.output, float(d.reference))
+                rec["port_in_unit"] = self.in_units(d.output, float(d.port))
+                rec["difference_in_unit"] = self.in_units(
+                    d.output, float(d.port) - float(d.reference), difference=True)
+                rec["bound_in_unit"] = self.in_units(d.output, d.bound, difference=True)
+                rec["difference_unit"] = self.difference_unit(d.output)
+            first.append(rec)
+        largest = {k: {"value": self.in_units(k, v, difference=True),
+                       "unit": self.difference_unit(k), "row": row, "si": v}
+                   for k, (v, row) in self.worst_abs.items()}
         return {"precision": self.precision, "k": K, "eps": eps,
                 "samples": self.samples, "disagreeing_samples": self.disagreeing_samples,
                 "disagreements": self.disagreements,
                 "worst_ratio_to_bound": self.worst,
-                "first": [d.as_dict() for d in self.kept]}
+                "max_abs_difference": largest,
+                "first": first}
 
 
 def compare_chunk(cmp: Comparison, first_row: int, ps: F64, pt: F64, tat: F64,
@@ -191,6 +230,12 @@ def compare_chunk(cmp: Comparison, first_row: int, ps: F64, pt: F64, tat: F64,
             nan_diff[k] = np.isnan(r) != np.isnan(p)
             over[k] = (np.abs(p - r) > bound[k]) & ~np.isnan(r) & ~np.isnan(p)
             ratio = np.abs(p - r) / bound[k]
+            diff = np.abs(p - r)
+        fin = np.flatnonzero(np.isfinite(diff))
+        if fin.size:
+            i = int(fin[np.argmax(diff[fin])])
+            if k not in cmp.worst_abs or diff[i] > cmp.worst_abs[k][0]:
+                cmp.worst_abs[k] = (float(diff[i]), first_row + i)
         finite_ratio = ratio[np.isfinite(ratio)]
         if finite_ratio.size:
             cmp.worst[k] = max(cmp.worst.get(k, 0.0), float(finite_ratio.max()))

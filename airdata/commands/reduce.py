@@ -865,9 +865,28 @@ def _report_comparison(cmp: Comparison) -> None:
         print(f"  largest |port - reference| / bound (upper estimate): {worst[1]:.3g} "
               f"({worst[0]})",
               file=sys.stderr)
+    short = {key: name for key, name, _ in OUTPUTS}
+    if cmp.worst_abs:
+        parts = []
+        for key, (v, row) in cmp.worst_abs.items():
+            unit = cmp.difference_unit(key)
+            where = f" (row {row})" if v > 0 else ""
+            parts.append(f"{short.get(key, key)} {cmp.in_units(key, v, difference=True):.3g}"
+                         f"{'' if unit == '1' else ' ' + unit}{where}")
+        print("  largest |port - reference|: " + ", ".join(parts), file=sys.stderr)
     for dis in cmp.kept[:20]:
-        print(f"  row {dis.row}: {dis.output}: reference {dis.reference!r}, port "
-              f"{dis.port!r}, bound {dis.bound:.3g}", file=sys.stderr)
+        if dis.output == "status":
+            print(f"  row {dis.row}: status: reference {dis.reference}, port {dis.port}",
+                  file=sys.stderr)
+            continue
+        unit, dunit = cmp.unit(dis.output), cmp.difference_unit(dis.output)
+        ref_v = cmp.in_units(dis.output, float(dis.reference))
+        port_v = cmp.in_units(dis.output, float(dis.port))
+        diff = cmp.in_units(dis.output, float(dis.port) - float(dis.reference), True)
+        bound = cmp.in_units(dis.output, dis.bound, True)
+        print(f"  row {dis.row}: {short.get(dis.output, dis.output)}: reference {ref_v!r} "
+              f"{unit}, port {port_v!r} {unit}, port - reference {diff:.3g} {dunit}, bound "
+              f"{bound:.3g} {dunit}", file=sys.stderr)
     if cmp.disagreements > 20:
         print(f"  ... {cmp.disagreements - 20} more (--json lists the first {cmp.limit})",
               file=sys.stderr)
@@ -885,7 +904,9 @@ def _run(args: argparse.Namespace) -> Summary:
         dialect = reader.dialect
         summary.notes.extend(dialect.notes)
         if args.compare:
-            summary.comparison = Comparison(args.precision)
+            ou = output_units(args)
+            summary.comparison = Comparison(
+                args.precision, units={key: ou[dim] for key, _, dim in OUTPUTS})
         if plan.recorded:
             summary.recorded = RecordedComparison(plan.recorded, args.engine,
                                                   "time" in plan.roles, plan.phase is not None)
