@@ -378,3 +378,24 @@ def test_negative_values_need_no_argparse_internals() -> None:
     assert _join_negative_values(["--ta", "-1"], opts, False) == ["--ta", "-1"]
     assert _join_negative_values(["-o", "-5.csv", "--", "--tat", "-1K"], opts, True) == \
         ["-o-5.csv", "--", "--tat", "-1K"]
+
+
+def test_band_edges_belong_to_the_band_above() -> None:
+    # Documented rule: a band holds lo <= x < hi (here on Mach edges 0.4 and 1.5).
+    from airdata.commands.compare import RecordedColumn, RecordedComparison
+
+    mach = np.array([0.3999999, 0.4, 1.5, 1.4999999])
+    n = len(mach)
+    nan = np.full(n, np.nan)
+    ref = airdata.AirData(pressure_altitude=nan, baro_altitude=None, impact_pressure=nan,
+                          mach=mach, cas=nan, eas=nan, tas=nan, sat=nan, density=nan,
+                          density_altitude=nan, dynamic_pressure=nan,
+                          status=np.zeros(n, dtype=np.int8), profile="icao")
+    col = RecordedColumn(0, "mach_rec", "mach", "mach", "1", "mach_diff[1]", "mach")
+    rc = RecordedComparison([col])
+    d = rc.add(1, (mach + np.array([0.01, 0.02, 0.03, 0.04]))[:, None],
+               np.zeros((n, 1), dtype=bool), ref, None, None)
+    np.testing.assert_allclose(d[:, 0], [0.01, 0.02, 0.03, 0.04], rtol=1e-9)
+    bands = {b["band"]: b for b in rc.as_dict()["outputs"][0]["bands"]}
+    assert bands["< 0.4"]["row"] == 1 and bands["0.4-0.7"]["row"] == 2
+    assert bands[">= 1.5"]["row"] == 3 and bands["1.1-1.5"]["row"] == 4
