@@ -11,8 +11,18 @@ resolution a recorder would store, and spoiled in a few places on purpose:
 * glitches: a ``-999.00`` temperature sentinel, an ``#ERR`` field, a static-pressure
   spike, a total pressure far below the static pressure (a blocked pitot).
 
+With ``--recorded`` the file also carries what an invented onboard air-data system
+recorded (``hp_rec[ft]``, ``cas_rec[kt]``, ``mach_rec``, ``tas_rec[kt]``,
+``sat_rec[degC]``), computed by the library from its own readings with an invented
+instrument error (:func:`recorded_columns`): a static-source error growing with Mach,
+a 0.5 kt CAS bias, recorder rounding, no airspeed below 40 kt and a few dropouts.  These
+columns come from a second random stream, so the other columns are the same as
+without ``--recorded``.
+
 The output is deterministic (fixed seed).  Run ``python examples/make_demo_flight.py``
-to rewrite ``examples/demo_flight.csv``; ``--out`` writes elsewhere.  These numbers are
+to rewrite ``examples/demo_flight.csv`` and
+``python examples/make_demo_flight.py --recorded`` for
+``examples/demo_flight_recorded.csv``; ``--out`` writes elsewhere.  These numbers are
 never used to check results: the tests compare ``airdata reduce`` on this file with the
 library called directly on the same readings.
 """
@@ -26,8 +36,21 @@ from pathlib import Path
 import numpy as np
 from numpy.typing import NDArray
 
-from airdata import atmosphere, impact_pressure_from_mach, pressure_at_altitude, tat_from_sat
-from airdata.units import FT
+from airdata import (
+    air_data,
+    atmosphere,
+    impact_pressure_from_mach,
+    pressure_at_altitude,
+    tat_from_sat,
+)
+from airdata.units import FT, KT
+
+#: Invented static-source error of the onboard system: Delta ps / ps = SSE_K * Mach**2.
+SSE_K = 0.0035
+#: Invented CAS bias of the onboard system, kt.
+CAS_BIAS_KT = 0.5
+#: The invented onboard system records no airspeed, Mach or TAS below this CAS, kt.
+CAS_FLOOR_KT = 40.0
 
 SEED = 20261201
 RATE_HZ = 1.0
@@ -72,8 +95,47 @@ def _ar1(rng: np.random.Generator, n: int, sigma: float, tau: float) -> NDArray[
     return x
 
 
-def make_rows(seed: int = SEED) -> list[list[str]]:
-    """The header and rows of the demo sortie, as CSV fields."""
+def recorded_columns(ps: NDArray[np.float64], pt: NDArray[np.float64],
+                     tat: NDArray[np.float64], mach: NDArray[np.float64],
+                     rng: np.random.Generator) -> tuple[list[str], list[list[str]]]:
+    """What the invented onboard system records, from the true readings (SI units).
+
+    Its static port reads ``ps (1 + SSE_K M**2)`` (an invented static-source error
+    growing with Mach), its pitot and TAT probe read true (TAT with 0.05 K noise); the
+    library turns these into outputs, CAS gets a +0.5 kt bias, values are rounded as a
+    recorder would store them (1 ft, 0.1 kt, 0.001 Mach, 0.1 degC), airspeeds are blank
+    below 40 kt CAS, and a few fields and one 5 s stretch are lost.
+    """
+    n = len(ps)
+    ps_ob = ps * (1.0 + SSE_K * mach * mach)
+    tat_ob = tat + rng.normal(0.0, 0.05, n)
+    out = air_data(ps_ob, pt, tat_ob, strict=False)
+    hp = np.round(np.asarray(out.pressure_altitude) / FT, 0)
+    cas = np.round(np.asarray(out.cas) / KT + CAS_BIAS_KT, 1)
+    m = np.round(np.asarray(out.mach), 3)
+    tas = np.round(np.asarray(out.tas) / KT, 1)
+    sat = np.round(np.asarray(out.sat) - 273.15, 1)
+    slow = ~(np.asarray(out.cas) / KT >= CAS_FLOOR_KT)
+    cols = [[f"{v:.0f}" for v in hp],
+            ["" if s else f"{v:.1f}" for v, s in zip(cas, slow, strict=True)],
+            ["" if s else f"{v:.3f}" for v, s in zip(m, slow, strict=True)],
+            ["" if s else f"{v:.1f}" for v, s in zip(tas, slow, strict=True)],
+            [f"{v:.1f}" for v in sat]]
+    for k in rng.choice(np.arange(300, n - 100), size=8, replace=False):
+        cols[int(k) % len(cols)][int(k)] = ""           # single dropouts
+    start = int(rng.integers(1000, n - 200))
+    for c in cols:                                      # a 5 s outage of the recorder
+        c[start:start + 5] = [""] * 5
+    header = ["hp_rec[ft]", "cas_rec[kt]", "mach_rec", "tas_rec[kt]", "sat_rec[degC]"]
+    return header, [list(r) for r in zip(*cols, strict=True)]
+
+
+def make_rows(seed: int = SEED, recorded: bool = False) -> list[list[str]]:
+    """The header and rows of the demo sortie, as CSV fields.
+
+    ``recorded`` appends the onboard system's recorded outputs (:func:`recorded_columns`,
+    from a second random stream: the other columns are unchanged).
+    """
     rng = np.random.default_rng(seed)
     t = np.arange(0.0, WAYPOINTS[-1][0] + 1.0, 1.0 / RATE_HZ)
     n = len(t)
@@ -125,16 +187,28 @@ def make_rows(seed: int = SEED) -> list[list[str]]:
             r[2] = f"{float(r[1]) - 40.0:.2f}"
         else:
             r[col] = what
+    if recorded:
+        head, rec = recorded_columns(ps, pt, tat, mach, np.random.default_rng(seed + 1))
+        rows[0].extend(head)
+        for r, extra in zip(rows[1:], rec, strict=True):
+            r.extend(extra)
     return rows
 
 
 def main() -> None:
     """Write the demo file."""
     ap = argparse.ArgumentParser(description="Write the invented demo sortie as CSV.")
-    ap.add_argument("--out", type=Path, default=Path(__file__).with_name("demo_flight.csv"))
+    ap.add_argument("--out", type=Path, default=None,
+                    help="file written (default: demo_flight.csv, or "
+                         "demo_flight_recorded.csv with --recorded, beside this script)")
     ap.add_argument("--seed", type=int, default=SEED)
+    ap.add_argument("--recorded", action="store_true",
+                    help="add the invented onboard system's recorded outputs (*_rec)")
     args = ap.parse_args()
-    rows = make_rows(args.seed)
+    if args.out is None:
+        name = "demo_flight_recorded.csv" if args.recorded else "demo_flight.csv"
+        args.out = Path(__file__).with_name(name)
+    rows = make_rows(args.seed, args.recorded)
     with open(args.out, "w", newline="", encoding="utf-8") as f:
         csv.writer(f, lineterminator="\n").writerows(rows)
     print(f"wrote {len(rows) - 1} samples to {args.out}")

@@ -6,7 +6,7 @@ without a space: ``250hPa``, ``29.92inHg``, ``-20degC``, ``"1013.25 hPa"``, ``35
 kind of unit is a usage error (exit status 2) whose message lists the units that fit.
 
 Negative values can be written directly (``--tat -20degC``) or with ``=``
-(``--tat=-20degC``).
+(``--tat=-20degC``); see :func:`allow_negative_values`.
 """
 
 from __future__ import annotations
@@ -17,6 +17,7 @@ import re
 import sys
 from collections.abc import Callable
 from dataclasses import dataclass
+from typing import Any, NoReturn
 
 from .. import units as u
 from ..profiles import PROFILES
@@ -183,16 +184,103 @@ def add_profile(parser: argparse.ArgumentParser) -> None:
                         help="constants profile of the standard atmosphere (default: icao)")
 
 
+#: A value that starts like a negative number (``-20degC``, ``-.5``, ``-1e3ft``): no option
+#: of these commands starts with ``-`` and a digit, so such a word is always a value.
+_NEGATIVE_VALUE = re.compile(r"^-\.?\d")
+
+
 def allow_negative_values(parser: argparse.ArgumentParser) -> None:
     """Let option values such as ``-20degC`` follow their option without ``=``.
 
-    argparse takes any word starting with ``-`` for an option unless it is a plain
-    negative number; this widens "plain negative number" to a number with a unit.
-    The parser has no option that looks like a negative number, so nothing is lost.
+    argparse reads a word that starts with ``-`` as an option unless it is a plain
+    negative number, so ``--tat -20degC`` would leave ``--tat`` without its value.  This
+    function wraps the parser's public methods only: ``add_argument`` (and those of its
+    argument groups) record the options that take one value, and ``parse_known_args``
+    (which ``parse_args`` and a parent's sub-command action call) rewrites
+    ``--tat -20degC`` as ``--tat=-20degC`` (``-x -5`` as ``-x-5``) before argparse sees
+    it, for every word starting with ``-`` and a digit (or ``-.`` and a digit) that follows
+    such an option.  ``--tat=-20degC`` always works.  If a value is still taken as an
+    option (e.g. ``--tat -°C``), the "expected one argument" error says to write
+    ``--OPTION=VALUE``.  Call it right after creating the parser, before adding options.
     """
-    if hasattr(parser, "_negative_number_matcher"):
-        parser._negative_number_matcher = re.compile(  # private; documented above
-            r"^-(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?\s*[A-Za-z/]*$")
+    value_options: set[str] = set()
+    _record_value_options(parser, value_options)
+    original_parse = parser.parse_known_args
+    original_error = parser.error
+
+    def parse_known_args(args: list[str] | None = None,
+                         namespace: argparse.Namespace | None = None,
+                         ) -> tuple[argparse.Namespace, list[str]]:
+        words = list(sys.argv[1:] if args is None else args)
+        return original_parse(_join_negative_values(words, value_options,
+                                                    parser.allow_abbrev), namespace)
+
+    def error(message: str) -> NoReturn:
+        m = re.match(r"argument (\S+?)(?:/\S+)?: expected one argument", message)
+        if m is not None:
+            opt = next((o for o in m.group(1).split("/") if o.startswith("--")),
+                       m.group(1))
+            message += (f" (a value that starts with '-' is written {opt}=VALUE, "
+                        f"e.g. {opt}=-20degC)")
+        original_error(message)
+        raise SystemExit(2)  # pragma: no cover - error() exits
+
+    parser.parse_known_args = parse_known_args  # type: ignore[method-assign]
+    parser.error = error  # type: ignore[method-assign]
+
+
+def _record_value_options(container: Any, value_options: set[str]) -> None:
+    """Wrap ``add_argument`` and the group makers of ``container`` (see above)."""
+    add = container.add_argument
+
+    def add_argument(*names: Any, **kwargs: Any) -> argparse.Action:
+        action = add(*names, **kwargs)
+        if action.option_strings and action.nargs in (None, 1):
+            value_options.update(action.option_strings)
+        return action
+
+    container.add_argument = add_argument
+    for maker in ("add_argument_group", "add_mutually_exclusive_group"):
+        make = getattr(container, maker, None)
+        if make is None:
+            continue
+
+        def wrapped(*a: Any, _make: Any = make, **kw: Any) -> Any:
+            group = _make(*a, **kw)
+            _record_value_options(group, value_options)
+            return group
+
+        setattr(container, maker, wrapped)
+
+
+def _join_negative_values(words: list[str], value_options: set[str],
+                          allow_abbrev: bool) -> list[str]:
+    """``[..., "--tat", "-20degC", ...]`` -> ``[..., "--tat=-20degC", ...]`` (see above)."""
+    out: list[str] = []
+    i = 0
+    while i < len(words):
+        word = words[i]
+        if word == "--":
+            out.extend(words[i:])
+            break
+        nxt = words[i + 1] if i + 1 < len(words) else None
+        if nxt is not None and _NEGATIVE_VALUE.match(nxt) and \
+                _takes_value(word, value_options, allow_abbrev):
+            out.append(f"{word}={nxt}" if word.startswith("--") else word + nxt)
+            i += 2
+            continue
+        out.append(word)
+        i += 1
+    return out
+
+
+def _takes_value(word: str, value_options: set[str], allow_abbrev: bool) -> bool:
+    if word in value_options:
+        return True
+    if not allow_abbrev or not word.startswith("--") or "=" in word or len(word) < 3:
+        return False
+    matches = [o for o in value_options if o.startswith(word)]
+    return len(matches) == 1
 
 
 def fail(command: str, message: str, code: int = 1) -> int:

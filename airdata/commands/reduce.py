@@ -38,6 +38,26 @@ chunk), so memory stays flat whatever the file size.  A progress bar is drawn on
 standard error when it is a terminal.  ``--plot`` keeps at most ``PLOT_POINTS`` samples
 (every k-th row of a long file).
 
+Recorded outputs
+----------------
+A column named ``<output>_rec`` with a unit (``cas_rec[kt]``, ``hp_rec[ft]``,
+``mach_rec``, ``sat_rec[degC]``, ``tas_rec[m/s]``) holds the value an onboard system
+recorded for an output.  ``<output>`` is a short output name -- ``hp`` (pressure
+altitude), ``hbaro`` (with a setting), ``qc``, ``mach``, ``cas``, ``eas``, ``tas``,
+``sat``, ``rho``, ``hd``, ``q`` -- or the field name of :class:`airdata.AirData`
+(``pressure_altitude_rec[ft]``); names are compared without case; ``mach_rec`` needs no
+unit, the others do (any unit of their kind).  Per row ``<output>_diff[unit]`` =
+recorded - reference is written after the outputs, in the recorded column's unit, and
+a summary per recorded column is printed (``--json``: key ``recorded``): rows compared,
+largest |diff| with its row and time, mean and rms, then the same per band of the
+reference's pressure altitude (altitudes, density: 10 000 ft bands), CAS (qc, cas, eas:
+100 kt bands) or Mach (mach, tas, sat, q: 0.4, 0.7, 0.9, 1.1, 1.5), and per ``phase``
+when the file has a phase column; the band and phase of largest rms are named.  A row
+whose recorded field is empty or not a number (``recorded_missing``) or whose reference
+is rejected (``reference_missing``) is counted and not compared.  Any other ``*_rec``
+column is refused with the accepted names; ``--ignore-recorded`` passes such columns
+through unchanged.  The recorded columns never change a row's status.
+
 Exit status: 0 done (also when some rows are bad, unless ``--fail-on-bad``), 1 a data
 problem (unreadable file, missing column, wrong unit in the header), 2 a usage error.
 """
@@ -64,7 +84,14 @@ from numpy.typing import NDArray
 from .. import units as u
 from ..chain import NOISE_BAND, AirData, air_data
 from ..status import DomainError, Status
-from .compare import Comparison
+from .compare import (
+    RECORDED,
+    RECORDED_SUFFIX,
+    Comparison,
+    RecordedColumn,
+    RecordedComparison,
+    recorded_names,
+)
 from .csvio import (
     ChunkReader,
     Column,
@@ -76,6 +103,7 @@ from .csvio import (
 )
 from .progress import Progress
 from .quantities import (
+    DECIMALS,
     add_output_units,
     add_profile,
     allow_negative_values,
@@ -136,6 +164,13 @@ q (dynamic pressure), then status (OK, INVALID_INPUT, OUT_OF_RANGE,
 IMPACT_PRESSURE_ZEROED) and note.  A bad row keeps its place with empty outputs and
 a status saying why; nothing is dropped or clamped.
 
+Recorded outputs: columns named <output>_rec[unit] (hp_rec[ft], cas_rec[kt],
+mach_rec, sat_rec[degC], tas_rec[kt]; outputs hp hbaro qc mach cas eas tas sat rho hd
+q) are compared with the computed outputs: <output>_diff[unit] = recorded - reference
+per row, in the recorded unit, and a summary (max |diff| with row and time, mean, rms,
+by pressure-altitude, CAS or Mach band and by phase).  Rows with a missing recorded
+value or a rejected reference are counted, not compared.
+
 The file is streamed in chunks: memory stays flat for any size.  A progress bar shows
 on standard error when it is a terminal.  Use "-" for standard input or output.
 
@@ -165,6 +200,7 @@ class Summary:
     seconds: float = 0.0
     columns: list[str] = field(default_factory=list)
     comparison: Comparison | None = None
+    recorded: RecordedComparison | None = None
     notes: list[str] = field(default_factory=list)
     first_note: str = ""
 
@@ -241,6 +277,8 @@ def register(subparsers: argparse._SubParsersAction) -> None:
                    help="run the reference and the C port on every row and report the "
                         "samples where they disagree beyond the vectors' bound "
                         "K eps scale (exit status 1 if any)")
+    p.add_argument("--ignore-recorded", action="store_true",
+                   help="pass <output>_rec columns through without comparing them")
     p.add_argument("--plot", metavar="FILE",
                    help="draw the main outputs against time into FILE (.png, .pdf, .svg); "
                         "needs matplotlib")
@@ -261,6 +299,8 @@ class _Plan:
     role_units: dict[str, str]
     outputs: list[tuple[str, str, str]]  # (key, header, unit)
     width: int
+    recorded: list[RecordedColumn] = field(default_factory=list)
+    phase: Column | None = None
 
 
 def _plan(reader: ChunkReader, args: argparse.Namespace) -> _Plan:
@@ -329,14 +369,65 @@ def _plan(reader: ChunkReader, args: argparse.Namespace) -> _Plan:
                          f"{', '.join(known)}")
         selected = [known[n] for n in names]
     outputs = [(key, f"{args.prefix}{name}[{ou[dim]}]", ou[dim]) for key, name, dim in selected]
+    recorded = [] if args.ignore_recorded else _recorded_columns(
+        reader.columns, roles, with_setting, args.prefix)
     clash = {h for _, h, _ in outputs} & {c.header for c in reader.columns}
+    clash |= {r.diff_header for r in recorded} & {c.header for c in reader.columns}
     for extra in ("status", "note"):
         if f"{args.prefix}{extra}" in {c.header for c in reader.columns}:
             clash.add(f"{args.prefix}{extra}")
     if clash:
         raise HeaderError(f"output column(s) {', '.join(sorted(clash))} already in the input; "
                           "give --prefix, e.g. --prefix ref_")
-    return _Plan(roles, role_units, outputs, len(reader.header))
+    phase = next((c for c in reader.columns if c.key == "phase" and c not in roles.values()),
+                 None)
+    return _Plan(roles, role_units, outputs, len(reader.header), recorded, phase)
+
+
+def _recorded_columns(columns: list[Column], roles: dict[str, Column], with_setting: bool,
+                      prefix: str) -> list[RecordedColumn]:
+    """The ``<output>_rec`` columns of the header (see the module docstring)."""
+    names = recorded_names()
+    info = {key: (short, dim, band) for key, short, dim, band, _ in RECORDED}
+    accepted = ", ".join(f"{short} ({words})" for _, short, _, _, words in RECORDED)
+    found: list[RecordedColumn] = []
+    seen: dict[str, str] = {}
+    for c in columns:
+        if not c.key.endswith(RECORDED_SUFFIX) or c in roles.values():
+            continue
+        base = c.key[:-len(RECORDED_SUFFIX)]
+        if base not in names:
+            raise HeaderError(
+                f"column {c.header!r}: {base!r} is not a recorded output; a recorded "
+                f"output column is named <output>_rec[unit] with <output> one of: "
+                f"{accepted} (or the full name, e.g. pressure_altitude_rec); rename the "
+                "column or give --ignore-recorded")
+        key = names[base]
+        short, dim, band = info[key]
+        if key in seen:
+            raise HeaderError(f"columns {seen[key]!r} and {c.header!r} both record {short}: "
+                              "keep one")
+        seen[key] = c.header
+        if key == "baro_altitude" and not with_setting:
+            raise HeaderError(f"column {c.header!r}: comparing hbaro needs an altimeter "
+                              "setting (a setting column or --setting)")
+        unit = c.unit
+        if unit is None and dim == "dimensionless":
+            unit = "1"
+        if unit is None:
+            raise HeaderError(f"column {c.header!r} carries no unit: name it like "
+                              f"{c.name}[{u.units_of(dim)[0]}]; units of {dim}: "
+                              f"{', '.join(u.units_of(dim))}")
+        try:
+            unit = u.normalize_unit(unit)
+        except ValueError:
+            unit = ""
+        if unit not in u.UNITS or u.dimension(unit) != dim:
+            raise HeaderError(f"column {c.header!r}: unit {c.unit!r} is not a {dim} unit; "
+                              f"units of {dim}: {', '.join(u.units_of(dim))}")
+        found.append(RecordedColumn(c.index, c.header, key, short, unit,
+                                    f"{prefix}{short}_diff[{unit}]", band))
+    return found
 
 
 def _delimiter_words(d: str) -> str:
@@ -381,11 +472,14 @@ def _column(rows: list[list[str]], index: int, ragged: bool) -> list[str]:
 
 
 def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace,
-                 comparison: Comparison | None = None, first_row: int = 1) -> _Chunk:
+                 comparison: Comparison | None = None, first_row: int = 1,
+                 recorded: RecordedComparison | None = None) -> _Chunk:
     """Reduce one chunk of rows (lists of field strings).
 
     ``comparison`` (with ``--compare``) collects the disagreements of the reference and
-    the C port; ``first_row`` is the data row number (from 1) of the chunk's first row.
+    the C port; ``first_row`` is the data row number (from 1) of the chunk's first row;
+    ``recorded`` collects the differences of the recorded outputs (its difference
+    columns follow the outputs in the chunk's values).
     """
     n = len(rows)
     width = plan.width
@@ -448,6 +542,16 @@ def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace,
     cols = []
     for key, _, unit in plan.outputs:
         cols.append(np.asarray(u.from_si(np.asarray(getattr(out, key)), unit)))
+    if recorded is not None and plan.recorded:
+        rec = np.empty((n, len(plan.recorded)))
+        unread = np.zeros((n, len(plan.recorded)), dtype=bool)
+        for j, rc in enumerate(plan.recorded):
+            rec[:, j], unread[:, j] = parse_numbers(_column(rows, rc.index, ragged))
+        times = _column(rows, plan.roles["time"].index, ragged) if "time" in plan.roles \
+            else None
+        phases = _column(rows, plan.phase.index, ragged) if plan.phase is not None else None
+        diffs = recorded.add(first_row, rec, unread, out, times, phases)
+        cols.extend(diffs.T)
     values = np.column_stack(cols) if cols else np.empty((n, 0))
     return _Chunk(values, status, notes, time_values, tat, out,
                   np.flatnonzero(ragged_mask).tolist())
@@ -682,6 +786,8 @@ def run(args: argparse.Namespace) -> int:
             doc["precision"] = args.precision
         if cmp is not None:
             doc["compare"] = cmp.as_dict()
+        if summary.recorded is not None:
+            doc["recorded"] = summary.recorded.as_dict()
         json.dump(doc, sys.stdout, indent=2)
         sys.stdout.write("\n")
     if not args.quiet:
@@ -691,6 +797,8 @@ def run(args: argparse.Namespace) -> int:
               f"{summary.seconds:.2f} s, {rate:,.0f} rows/s -> {args.output}", file=sys.stderr)
         for note in summary.notes:
             print(f"airdata reduce: note: {note}", file=sys.stderr)
+        if summary.recorded is not None:
+            print(recorded_report(summary.recorded), file=sys.stderr)
     if cmp is not None:
         if not args.quiet:
             _report_comparison(cmp)
@@ -706,6 +814,47 @@ def run(args: argparse.Namespace) -> int:
     return 0
 
 
+def _fmt(value: float | None, unit: str, signed: bool = False) -> str:
+    if value is None:
+        return "-"
+    d = DECIMALS.get(unit, 3) + 1
+    return f"{value:+.{d}f}" if signed else f"{value:.{d}f}"
+
+
+def recorded_report(rec: RecordedComparison) -> str:
+    """The readable summary of the recorded-output comparison (lines of text)."""
+    doc = rec.as_dict()
+    lines = [f"airdata reduce: recorded outputs vs {rec.engine} "
+             "(diff = recorded - reference, in the recorded column's unit)"]
+    for o in doc["outputs"]:
+        unit = o["unit"]
+        uw = "" if unit == "1" else f" {unit}"
+        miss = (f"{o['not_compared']} not compared ({o['recorded_missing']} recorded value "
+                f"missing, {o['reference_missing']} row(s) rejected)")
+        if o["compared"]:
+            where = f"row {o['row']}" + (f", time {o['time']}" if o["time"] is not None else "")
+            lines.append(f"  {o['column']} -> {o['diff_column']}: {o['compared']} compared, "
+                         f"{miss}; max |diff| {_fmt(o['max_abs_diff'], unit)}{uw} "
+                         f"({_fmt(o['max_diff'], unit, True)} at {where}), mean "
+                         f"{_fmt(o['mean'], unit, True)}, rms {_fmt(o['rms'], unit)}{uw}")
+        else:
+            lines.append(f"  {o['column']}: nothing compared, {miss}")
+        groups = [(f"by {o['band_by']} band", "band", o["bands"], o["largest_band"])]
+        if "phases" in o:
+            groups.append(("by phase", "phase", o["phases"], o["largest_phase"]))
+        for title, name, items, largest in groups:
+            if not items:
+                continue
+            lines.append(f"    {title} (largest rms: {largest}):")
+            w = max(len(str(it[name])) for it in items)
+            for it in items:
+                lines.append(f"      {str(it[name]):<{w}}  {it['compared']:>6}  max |diff| "
+                             f"{_fmt(it['max_abs_diff'], unit):>10} (row {it['row']})  mean "
+                             f"{_fmt(it['mean'], unit, True):>10}  rms "
+                             f"{_fmt(it['rms'], unit):>10}")
+    return "\n".join(lines)
+
+
 def _report_comparison(cmp: Comparison) -> None:
     d = cmp.as_dict()
     print(f"airdata reduce: compare reference vs C port ({cmp.precision}): "
@@ -716,9 +865,28 @@ def _report_comparison(cmp: Comparison) -> None:
         print(f"  largest |port - reference| / bound (upper estimate): {worst[1]:.3g} "
               f"({worst[0]})",
               file=sys.stderr)
+    short = {key: name for key, name, _ in OUTPUTS}
+    if cmp.worst_abs:
+        parts = []
+        for key, (v, row) in cmp.worst_abs.items():
+            unit = cmp.difference_unit(key)
+            where = f" (row {row})" if v > 0 else ""
+            parts.append(f"{short.get(key, key)} {cmp.in_units(key, v, difference=True):.3g}"
+                         f"{'' if unit == '1' else ' ' + unit}{where}")
+        print("  largest |port - reference|: " + ", ".join(parts), file=sys.stderr)
     for dis in cmp.kept[:20]:
-        print(f"  row {dis.row}: {dis.output}: reference {dis.reference!r}, port "
-              f"{dis.port!r}, bound {dis.bound:.3g}", file=sys.stderr)
+        if dis.output == "status":
+            print(f"  row {dis.row}: status: reference {dis.reference}, port {dis.port}",
+                  file=sys.stderr)
+            continue
+        unit, dunit = cmp.unit(dis.output), cmp.difference_unit(dis.output)
+        ref_v = cmp.in_units(dis.output, float(dis.reference))
+        port_v = cmp.in_units(dis.output, float(dis.port))
+        diff = cmp.in_units(dis.output, float(dis.port) - float(dis.reference), True)
+        bound = cmp.in_units(dis.output, dis.bound, True)
+        print(f"  row {dis.row}: {short.get(dis.output, dis.output)}: reference {ref_v!r} "
+              f"{unit}, port {port_v!r} {unit}, port - reference {diff:.3g} {dunit}, bound "
+              f"{bound:.3g} {dunit}", file=sys.stderr)
     if cmp.disagreements > 20:
         print(f"  ... {cmp.disagreements - 20} more (--json lists the first {cmp.limit})",
               file=sys.stderr)
@@ -730,12 +898,18 @@ def _run(args: argparse.Namespace) -> Summary:
     try:
         plan = _plan(reader, args)
         header = list(reader.header) + [h for _, h, _ in plan.outputs] \
+            + [r.diff_header for r in plan.recorded] \
             + [f"{args.prefix}status", f"{args.prefix}note"]
         summary = Summary(columns=header)
         dialect = reader.dialect
         summary.notes.extend(dialect.notes)
         if args.compare:
-            summary.comparison = Comparison(args.precision)
+            ou = output_units(args)
+            summary.comparison = Comparison(
+                args.precision, units={key: ou[dim] for key, _, dim in OUTPUTS})
+        if plan.recorded:
+            summary.recorded = RecordedComparison(plan.recorded, args.engine,
+                                                  "time" in plan.roles, plan.phase is not None)
         collector = None
         if args.plot:
             from .plotting import Collector
@@ -747,7 +921,7 @@ def _run(args: argparse.Namespace) -> Summary:
             sink = _CsvSink(args.output, dialect.delimiter, dialect.decimal, args.digits)
         else:
             sink = _ArrowSink(args.output, out_format, plan.width)
-        units = [unit for _, _, unit in plan.outputs]
+        units = [unit for _, _, unit in plan.outputs] + [r.unit for r in plan.recorded]
         try:
             sink.header(header)
             width = plan.width
@@ -757,9 +931,10 @@ def _run(args: argparse.Namespace) -> Summary:
             for rows in reader.chunks():
                 if dialect.decimal == ",":
                     ch = reduce_chunk(_decimal_points(rows, plan), plan, args,
-                                      summary.comparison, summary.rows + 1)
+                                      summary.comparison, summary.rows + 1, summary.recorded)
                 else:
-                    ch = reduce_chunk(rows, plan, args, summary.comparison, summary.rows + 1)
+                    ch = reduce_chunk(rows, plan, args, summary.comparison, summary.rows + 1,
+                                      summary.recorded)
                 values = ch.values if out_format == "csv" and args.digits is not None \
                     else round_outputs(ch.values, units, args.digits, args.exact)
                 names = [_STATUS_NAMES[s] for s in ch.status.tolist()]
@@ -795,7 +970,7 @@ def _run(args: argparse.Namespace) -> Summary:
 
 def _decimal_points(rows: list[list[str]], plan: _Plan) -> list[list[str]]:
     """Rows whose quantity fields have the decimal comma replaced by a point (a copy)."""
-    idx = [c.index for c in plan.roles.values()]
+    idx = [c.index for c in plan.roles.values()] + [r.index for r in plan.recorded]
     out = []
     for row in rows:
         r = list(row)
