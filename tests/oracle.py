@@ -20,8 +20,11 @@ mpmath at 50 significant digits:
   setting = (ps^n + p0^n L e / T0)^(1/n), n = R L/g0, L = 0.0065 K/m, with the
   profile's constants.
 
-The defining constants are the exact decimal strings of the standards; layer base
-temperatures, pressures and densities are derived here at 50 digits.  Inverses with a
+The defining constants are the exact decimal strings of the standards, typed here with
+their source (:data:`DEFINING`, :data:`LAYER_SOURCE`) and never read from ``airdata``;
+layer base temperatures, pressures and densities are derived here at 50 digits
+(:func:`make_profile`).  tests/test_constants_independent.py checks that the library's
+constants (Python profiles and the C header) agree with these.  Inverses with a
 closed form use it; the supersonic pitot inversion (no closed form) uses
 ``findroot`` with a bracketing solver at 60 digits.
 
@@ -43,7 +46,8 @@ from typing import Any
 import mpmath
 
 __all__ = [
-    "mp", "Real", "GAMMA", "RefProfile", "PROFILES", "EPS64", "EPS32", "REL_STEP",
+    "mp", "Real", "GAMMA", "Constant", "DEFINING", "LAYER_SOURCE", "RefProfile",
+    "PROFILES", "make_profile", "EPS64", "EPS32", "REL_STEP",
     "standard_temperature", "standard_pressure", "standard_density", "atmosphere",
     "geopotential_altitude", "geometric_altitude", "pressure_altitude",
     "pressure_at_altitude", "baro_corrected_altitude", "altimeter_setting",
@@ -63,7 +67,8 @@ mp.dps = 50
 #: A number of ``mp`` (mpmath ships no type information).
 Real = Any
 
-#: Ratio of specific heats of air, 1.4 exactly (NACA Report 1135; ICAO Doc 7488).
+#: Ratio of specific heats of air, 1.4 exactly (NACA Report 1135; ICAO Doc 7488/3, from
+#: memory).  Also in :data:`DEFINING` (``gamma``).
 GAMMA = mp.mpf(14) / 10
 
 #: Unit roundoff scale of the conventions: 2**-52 (binary64) and 2**-23 (binary32).
@@ -73,12 +78,65 @@ EPS32 = mp.mpf(2) ** -23
 #: Relative step of the finite differences (conventions section 3).
 REL_STEP = mp.mpf("1e-22")
 
-# Layer model of U.S. Standard Atmosphere 1976 Table 4 and ICAO Doc 7488 (from memory):
-# base geopotential altitude (m) and molecular-scale temperature gradient (K/m).
+@dataclass(frozen=True)
+class Constant:
+    """One defining constant as typed from its standard.
+
+    Attributes
+    ----------
+    value : str
+        The exact decimal string of the standard.
+    unit : str
+        SI unit.
+    source : str
+        Where the value is defined; ``from memory`` where typed from memory.
+    """
+
+    value: str
+    unit: str
+    source: str
+
+
+_ICAO = "ICAO Doc 7488/3 (1993) Table 1 / ISO 2533:1975 (from memory)"
+_USSA = "U.S. Standard Atmosphere 1976, NOAA-S/T 76-1562, Table 2 (from memory)"
+_BOTH = f"{_ICAO}; {_USSA}"
+
+#: Constants both standards define with the same value.  Typed here from the standards,
+#: never read from ``airdata``: tests/test_constants_independent.py compares the two.
+_COMMON: Mapping[str, Constant] = {
+    "g0": Constant("9.80665", "m/s2", f"standard gravity, {_BOTH}"),
+    "T0": Constant("288.15", "K", f"sea-level temperature, {_BOTH}"),
+    "p0": Constant("101325", "Pa", f"sea-level pressure, {_BOTH}"),
+    "r0": Constant("6356766", "m", "Earth radius of the geopotential altitude, "
+                   "U.S. Standard Atmosphere 1976 eq. 18; ICAO Doc 7488/3 (from memory)"),
+    "beta": Constant("1.458e-6", "kg/(m s K^0.5)",
+                     "Sutherland's beta, U.S. Standard Atmosphere 1976 eq. 51; ICAO Doc 7488/3 "
+                     "(from memory)"),
+    "S": Constant("110.4", "K", "Sutherland's constant, U.S. Standard Atmosphere 1976 eq. 51; "
+                  "ICAO Doc 7488/3 (from memory)"),
+    "gamma": Constant("1.4", "1", f"ratio of specific heats of air, {_ICAO}; NACA Report 1135"),
+}
+
+#: The defining constants of each profile.  ``icao`` states R itself; ``us1976``
+#: defines R = R*/M0.
+DEFINING: Mapping[str, Mapping[str, Constant]] = {
+    "icao": {**_COMMON,
+             "R": Constant("287.05287", "J/(kg K)", f"specific gas constant of air, {_ICAO}")},
+    "us1976": {**_COMMON,
+               "R_star": Constant("8314.32", "J/(kmol K)", f"universal gas constant, {_USSA}"),
+               "M0": Constant("28.9644", "kg/kmol", f"sea-level molecular weight, {_USSA}")},
+}
+
+#: Layer model shared by both standards: base geopotential altitude (m) and
+#: molecular-scale temperature gradient (K/m) of each of the seven layers.
+LAYER_SOURCE = ("U.S. Standard Atmosphere 1976 Table 4; ICAO Doc 7488/3 Table D "
+                "(from memory)")
 _LAYER_BASES = ("0", "11000", "20000", "32000", "47000", "51000", "71000")
 _LAPSE_RATES = ("-0.0065", "0", "0.001", "0.0028", "0", "-0.0028", "-0.002")
-_TOP = "84852"  # top of the 1976 layer model, m (from memory)
-_BOTTOM = "-5000"  # lowest tabulated altitude of both standards, m (from memory)
+#: Top of the 1976 layer model, geopotential m (U.S. Standard Atmosphere 1976, from memory).
+_TOP = "84852"
+#: Lowest tabulated altitude of both standards, m (from memory).
+_BOTTOM = "-5000"
 
 
 @dataclass(frozen=True)
@@ -126,33 +184,54 @@ def _layer_pressure(pb: Real, tb: Real, lapse: Real, dh: Real, g0: Real, r: Real
     return pb * mp.exp(-g0 * dh / (r * tb))
 
 
-def _make_profile(name: str, r: Real) -> RefProfile:
-    g0 = mp.mpf("9.80665")
-    t0 = mp.mpf("288.15")
-    p0 = mp.mpf("101325")
-    hb = tuple(mp.mpf(h) for h in _LAYER_BASES)
-    lapse = tuple(mp.mpf(x) for x in _LAPSE_RATES)
+def make_profile(
+    name: str,
+    overrides: Mapping[str, str] | None = None,
+    hb: Sequence[str] = _LAYER_BASES,
+    lapse: Sequence[str] = _LAPSE_RATES,
+) -> RefProfile:
+    """The 50-digit profile of the standard ``name`` (a key of :data:`DEFINING`).
+
+    Parameters
+    ----------
+    name : str
+        ``"icao"`` or ``"us1976"``.
+    overrides : mapping of str to str, optional
+        Defining constants to replace, as decimal strings (a test's deliberate slip).
+    hb, lapse : sequence of str
+        Layer base altitudes (m) and gradients (K/m); default the standards'.
+
+    Returns
+    -------
+    RefProfile
+        Defining constants and the layer base temperatures, pressures and densities
+        derived from them here (eqs. 23, 33a/33b, 42 of U.S. Standard Atmosphere 1976).
+    """
+    d = {k: mp.mpf(c.value) for k, c in DEFINING[name].items()}
+    d.update({k: mp.mpf(v) for k, v in (overrides or {}).items()})
+    r = d["R"] if "R" in d else d["R_star"] / d["M0"]
+    g0, t0, p0 = d["g0"], d["T0"], d["p0"]
+    hbs = tuple(mp.mpf(h) for h in hb)
+    lapses = tuple(mp.mpf(x) for x in lapse)
     tb = [t0]
     pb = [p0]
-    for i in range(len(hb) - 1):
-        dh = hb[i + 1] - hb[i]
-        tb.append(tb[i] + lapse[i] * dh)
-        pb.append(_layer_pressure(pb[i], tb[i], lapse[i], dh, g0, r))
+    for i in range(len(hbs) - 1):
+        dh = hbs[i + 1] - hbs[i]
+        tb.append(tb[i] + lapses[i] * dh)
+        pb.append(_layer_pressure(pb[i], tb[i], lapses[i], dh, g0, r))
     rho_b = tuple(p / (r * t) for p, t in zip(pb, tb, strict=True))
+    gamma = d["gamma"]
     return RefProfile(
-        name=name, g0=g0, R=r, T0=t0, p0=p0, r0=mp.mpf("6356766"),
-        beta=mp.mpf("1.458e-6"), S=mp.mpf("110.4"), hb=hb, lapse=lapse, tb=tuple(tb),
-        pb=tuple(pb), rho_b=rho_b, h_min=mp.mpf(_BOTTOM), h_max=mp.mpf(_TOP),
-        a0=mp.sqrt(GAMMA * r * t0), rho0=p0 / (r * t0),
+        name=name, g0=g0, R=r, T0=t0, p0=p0, r0=d["r0"], beta=d["beta"], S=d["S"],
+        hb=hbs, lapse=lapses, tb=tuple(tb), pb=tuple(pb), rho_b=rho_b,
+        h_min=mp.mpf(_BOTTOM), h_max=mp.mpf(_TOP),
+        a0=mp.sqrt(gamma * r * t0), rho0=p0 / (r * t0),
     )
 
 
 #: ``icao``: R = 287.05287 J/(kg K) as stated by ICAO Doc 7488/3 (from memory);
 #: ``us1976``: R = R*/M0 = 8314.32/28.9644 (U.S. Standard Atmosphere 1976, from memory).
-PROFILES: Mapping[str, RefProfile] = {
-    "icao": _make_profile("icao", mp.mpf("287.05287")),
-    "us1976": _make_profile("us1976", mp.mpf("8314.32") / mp.mpf("28.9644")),
-}
+PROFILES: Mapping[str, RefProfile] = {name: make_profile(name) for name in DEFINING}
 
 
 def _prof(profile: RefProfile | str) -> RefProfile:
