@@ -35,8 +35,8 @@ import sys
 import tempfile
 import threading
 import time
+from collections.abc import Iterable, Sequence
 from pathlib import Path
-from typing import Iterable, Iterator, Sequence
 
 DISCLAIMER = "An engineering and verification aid, not certified flight software."
 
@@ -105,7 +105,8 @@ TOKEN_RE = re.compile(
       | [0-9]+[eE][+-]?[0-9]+[fFlL]?
       | [0-9]+[uUlL]*)
   | (?P<ident>[A-Za-z_][A-Za-z_0-9]*)
-  | (?P<op>->|\+\+|--|<<=|>>=|<=|>=|==|!=|&&|\|\||[-+*/%&|^<>!=]=|<<|>>|\.\.\.|[-+*/%&|^~!<>=?:;,.(){}\[\]\#])
+  | (?P<op>->|\+\+|--|<<=|>>=|<=|>=|==|!=|&&|\|\||[-+*/%&|^<>!=]=|<<|>>|\.\.\.
+      |[-+*/%&|^~!<>=?:;,.(){}\[\]\#])
     """,
     re.VERBOSE | re.DOTALL,
 )
@@ -360,7 +361,7 @@ def format_like(original: str, value: float, precision: str, suffix: str) -> str
     if precision == "binary32":
         value = _to_f32(value)
     if original.lower().startswith("0x"):
-        text = value.hex()
+        text = re.sub(r"\.?0+p", "p", value.hex())
     else:
         text = _shortest(value, precision)
         if not _is_float_literal(text):
@@ -615,9 +616,8 @@ def mutants_of_source(source: str, rel: str, types: set[str],
             define_values[f"{body[0].define}@{','.join(sorted(body[0].configs))}"] = (
                 parse_float_literal(nums[0].text)[0])
 
-    def const_mutants(t: Token, layer_index: int = -1) -> None:
+    def const_mutants(t: Token, layer_index: int = -1, hi_value: float | None = None) -> None:
         value, precision, suffix = parse_float_literal(t.text)
-        hi_value = None
         if t.define in LOW_PARTS:
             hi_value = define_values.get(
                 f"{LOW_PARTS[t.define]}@{','.join(sorted(t.configs))}")
@@ -640,6 +640,18 @@ def mutants_of_source(source: str, rel: str, types: set[str],
 
     for body in defines.values():
         name = body[0].define
+        row: dict[int, float] = {}
+        idx = 0
+        depth = 0
+        for t in body:
+            if t.text == "{":
+                depth += 1
+            elif t.text == "}":
+                depth -= 1
+            elif t.text == "," and depth == 1:
+                idx += 1
+            elif depth == 1 and t.kind == "number" and _is_float_literal(t.text):
+                row[idx] = parse_float_literal(t.text)[0]
         idx = 0
         depth = 0
         for t in body:
@@ -652,7 +664,8 @@ def mutants_of_source(source: str, rel: str, types: set[str],
             if t.kind != "number":
                 continue
             if _is_float_literal(t.text):
-                const_mutants(t, idx if depth == 1 else -1)
+                li = idx if depth == 1 else -1
+                const_mutants(t, li, row.get(LAYER_LOW[li]) if li in LAYER_LOW else None)
             elif name in loop_macros and len(body) == 1:
                 n = int(re.sub(r"[uUlL]+$", "", t.text), 0)
                 suf = re.search(r"[uUlL]*$", t.text).group(0)  # type: ignore[union-attr]
@@ -680,7 +693,7 @@ def mutants_of_source(source: str, rel: str, types: set[str],
             add(t, "status", "swap", STATUS_SWAP[t.text])
         elif t.kind == "op":
             if t.text in REL_SWAP:
-                for detail, repl in zip(("boundary", "reverse"), REL_SWAP[t.text]):
+                for detail, repl in zip(("boundary", "reverse"), REL_SWAP[t.text], strict=False):
                     if t.text in ("==", "!="):
                         detail = "negate"
                     add(t, "rel", detail, repl)
@@ -840,7 +853,7 @@ class Builder:
             oks = list(ex.map(lambda a: self._compile(a[0], a[1], a[2], self._incs(a[0])),
                               tasks))
         if not all(oks):
-            bad = [str(t[1]) for t, ok in zip(tasks, oks) if not ok]
+            bad = [str(t[1]) for t, ok in zip(tasks, oks, strict=True) if not ok]
             raise RuntimeError(f"the unmutated port does not compile: {bad}")
         base = {}
         for cfg in self.configs:
@@ -968,8 +981,6 @@ def probe_equality(b: Builder, m: Mutant, source: str) -> list[str] | None:
         return None
     lo, hi = operand_span(toks, idx)
     a = source[toks[lo].start:toks[idx].start].strip()
-    bb = source[toks[idx].end if hasattr(toks[idx], "end") else m.end:
-                toks[hi].start + len(toks[hi].text)].strip()
     bb = source[m.end:toks[hi].start + len(toks[hi].text)].strip()
     expr = f"(ad_mut_eq((double)({a}), (double)({bb})), (({a}) {m.original} ({bb})))"
     text = (PROBE + source[:toks[lo].start] + expr
@@ -1239,11 +1250,6 @@ def main(argv: Sequence[str] | None = None) -> int:
         a.report.write_text(json.dumps(report, indent=1, default=str) + "\n")
     print(text_summary(report))
     return 0
-
-
-def _iter_ids(ms: Iterable[Mutant]) -> Iterator[str]:
-    for m in ms:
-        yield m.id
 
 
 if __name__ == "__main__":
