@@ -1010,9 +1010,50 @@ def _limit_operand(source: str, m: Mutant) -> str:
     return ""
 
 
+#: Layer-row entries that are 0 where the layer's kind does not use them (m, k, c, n, kd,
+#: lapse_lo).
+UNUSED_ZERO = {4, 5, 6, 7, 10, 12}
+_ROOT = [Path(__file__).resolve().parents[1]]
+_REFS: dict[str, set[str]] = {}
+
+
+def root_of(m: Mutant) -> Path:
+    """Repository root the mutants were generated from."""
+    return _ROOT[0]
+
+
+def _referenced_macros(root: Path) -> set[str]:
+    """Identifiers used by compiled code of the port (outside #define bodies and tables
+    of ad_constants.h), and by the bodies of macros so used (one level)."""
+    key = str(root)
+    if key not in _REFS:
+        used: set[str] = set()
+        bodies: dict[str, set[str]] = {}
+        for f in port_files(root):
+            for t in tokenize((root / f).read_text()):
+                if t.kind == "ident" and not t.define and not t.directive:
+                    used.add(t.text)
+                elif t.kind == "ident" and t.define:
+                    bodies.setdefault(t.define, set()).add(t.text)
+        for _ in range(3):
+            for name in list(used):
+                used |= bodies.get(name, set())
+        _REFS[key] = used
+    return _REFS[key]
+
+
 def classify(b: Builder | None, m: Mutant, source: str) -> None:
     """Classify a survivor: ``equivalent`` with a reason, ``gap`` or ``unclassified``."""
     precs = sorted({CONFIGS[c][1] for c in m.configs})
+    if m.macro and m.macro not in _referenced_macros(root_of(m)):
+        m.classification = "equivalent"
+        m.reason = f"dead code: macro {m.macro} is referenced by no compiled port code"
+        return
+    if m.operator == "const" and m.layer_index in UNUSED_ZERO and m.original.startswith("0x0p"):
+        m.classification = "equivalent"
+        m.reason = ("dead data: zero entry of a layer row that this layer's kind does not "
+                    "read (ad_internal.h: 'else 0')")
+        return
     if m.operator == "const" and m.rel_size is not None:
         tol = min(VEC_K * EPS[p] for p in precs)
         finest = min(precs, key=lambda p: EPS[p])
@@ -1226,8 +1267,24 @@ def main(argv: Sequence[str] | None = None) -> int:
                    help="write the JSON report here")
     p.add_argument("--workdir", type=Path, default=None, help="scratch folder parent")
     p.add_argument("--quiet", action="store_true", help="no progress lines on stderr")
+    p.add_argument("--reclassify", type=Path, default=None, metavar="FILE.json",
+                   help="re-classify the non-relational survivors of a report (no runs)")
     a = p.parse_args(argv)
     root = a.root.resolve()
+    _ROOT[0] = root
+    if a.reclassify:
+        rep = json.loads(a.reclassify.read_text())
+        names = {f.name for f in dataclasses.fields(Mutant)}
+        ms = [Mutant(**{k: v for k, v in d.items() if k in names}) for d in rep["mutants"]]
+        for m in ms:
+            if m.outcome == "survived" and not (m.operator == "rel" and m.detail == "boundary"):
+                classify(None, m, (root / m.file).read_text())
+        rep["summary"] = summarize(ms)
+        rep["mutants"] = [dataclasses.asdict(m) for m in ms]
+        rep["survivors"] = [d for d in rep["mutants"] if d["outcome"] == "survived"]
+        (a.report or a.reclassify).write_text(json.dumps(rep, indent=1, default=str) + "\n")
+        print(text_summary(rep))
+        return 0
     ops = [o for o in a.ops.split(",") if o]
     bad_ops = sorted(set(ops) - set(OPERATORS))
     if bad_ops:
