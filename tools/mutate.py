@@ -386,13 +386,12 @@ def perturb_digit(value: float, digit: int) -> float:
 def firmware_round(value: float, precision: str, digits: int = 5) -> float | None:
     """The value rounded to `digits` significant digits, as a firmware table writes it.
 
-    None when the constant is an exact short decimal (at most digits + 1 significant
-    digits, like 101325 or 288.15: the defining values of the standard) or when the
-    rounding does not change it.
+    None when the constant is an integer (like 101325, a defining value of the standard)
+    or has at most `digits` significant digits (like 288.15).
     """
     short = _shortest(value, precision)
     mant = re.sub(r"[eE].*", "", short).replace("-", "").replace(".", "").lstrip("0")
-    if len(mant.rstrip("0")) <= digits + 1:
+    if len(mant.rstrip("0")) <= digits or float(value).is_integer():
         return None
     r = float(f"{value:.{digits}g}")
     return r
