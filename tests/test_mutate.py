@@ -1,0 +1,221 @@
+"""Tests of tools/mutate.py, the mutation adequacy tool of the vectors.
+
+Unit tests of the tokenizer and the mutation operators on small C snippets, then a small
+deterministic run against the real port: a known-killable mutant is killed and the
+summary counts add up.  The runs need a C compiler; without one they are skipped unless
+AIRDATA_REQUIRE_TOOLCHAINS=1 (then they fail).
+"""
+
+from __future__ import annotations
+
+import importlib.util
+import json
+import os
+import shutil
+import sys
+from pathlib import Path
+
+import pytest
+
+ROOT = Path(__file__).resolve().parents[1]
+_spec = importlib.util.spec_from_file_location("ad_mutate", ROOT / "tools" / "mutate.py")
+assert _spec is not None and _spec.loader is not None
+mutate = importlib.util.module_from_spec(_spec)
+sys.modules["ad_mutate"] = mutate
+_spec.loader.exec_module(mutate)
+
+SNIPPET = """\
+/* a comment with a < b and 287.05287 inside */
+#include "x.h"
+#define AD_GAS 287.05287
+#define AD_STEPS 4
+#define AD_MACRO(a) ((a) < 1.5)
+#if defined(AIRDATA_SINGLE)
+#define AD_ONLY32 0x1.8p+0f
+#else
+#define AD_ONLY64 0x1.8p+0
+#endif
+static const char *s = "x < y && 2.5";
+int f(double a, double b, int *p)
+{
+    int i;
+    // line comment: a > b
+    for (i = 0; i < AD_STEPS; i++) {
+        if ((a < b) && (a >= 0.190263)) {
+            return AD_OUT_OF_RANGE;
+        }
+    }
+    *p = (int)(a * b - 1.0);
+    return AD_OK;
+}
+"""
+TYPES = {"double", "int", "char", "const"}
+
+
+def _mutants(src: str = SNIPPET) -> list:
+    return mutate.mutants_of_source(src, "snippet.c", TYPES, {"AD_STEPS"})
+
+
+def _need_cc() -> None:
+    if mutate.compiler() is None or shutil.which("gcc") is None:
+        if os.environ.get("AIRDATA_REQUIRE_TOOLCHAINS") == "1":
+            pytest.fail("gcc is required (AIRDATA_REQUIRE_TOOLCHAINS=1) but missing")
+        pytest.skip("no gcc")
+
+
+def test_perturb_digit_6th_digit_of_gas_constant() -> None:
+    # 287.05287 J/(kg K), ICAO Doc 7488/3 (from memory); one unit in the 6th significant
+    # digit is 1e-3.
+    assert mutate.perturb_digit(287.05287, 6) == pytest.approx(287.05387, abs=1e-9)
+    assert mutate.perturb_digit(287.05287, 4) == pytest.approx(287.15287, abs=1e-9)
+    assert mutate.perturb_digit(287.05287, 9) == pytest.approx(287.052871, abs=1e-10)
+    assert mutate.perturb_digit(-0.0065, 4) == pytest.approx(-0.006501, abs=1e-12)
+
+
+def test_firmware_rounding() -> None:
+    assert mutate.firmware_round(287.05287, "binary64") == 287.05
+    assert mutate.firmware_round(0.190263, "binary64") == 0.19026
+    # exact short decimals (defining values of the standard) are left alone
+    assert mutate.firmware_round(101325.0, "binary64") is None
+    assert mutate.firmware_round(288.15, "binary64") is None
+
+
+def test_hex_literals_keep_their_style_and_precision() -> None:
+    v, prec, suf = mutate.parse_float_literal("0x1.1f0d88p+8f")
+    assert prec == "binary32" and suf == "f"
+    out = mutate.format_like("0x1.1f0d88p+8f", mutate.perturb_digit(v, 4), prec, suf)
+    assert out.startswith("0x1.") and out.endswith("f")
+    assert mutate.parse_float_literal(out)[0] != v
+    assert mutate.format_like("287.05287", 287.05387, "binary64", "") == "287.05387"
+
+
+def test_tokenizer_marks_comments_strings_and_preprocessor() -> None:
+    toks = mutate.tokenize(SNIPPET)
+    kinds = {t.text: t.kind for t in toks if t.kind in ("comment", "string")}
+    assert any(k.startswith("/* a comment") for k in kinds)
+    assert '"x < y && 2.5"' in kinds
+    inc = [t for t in toks if t.line == 2]
+    assert all(t.kind == "pp" for t in inc)
+    # the body of an object-like #define keeps its kind and the macro name
+    gas = [t for t in toks if t.text == "287.05287" and t.kind == "number"]
+    assert len(gas) == 1 and gas[0].define == "AD_GAS"
+
+
+def test_conditional_compilation_per_configuration() -> None:
+    toks = mutate.tokenize(SNIPPET)
+    only32 = next(t for t in toks if t.text == "0x1.8p+0f")
+    only64 = next(t for t in toks if t.text == "0x1.8p+0")
+    assert only32.configs == {"icao-binary32", "us1976-binary32"}
+    assert only64.configs == {"icao-binary64", "us1976-binary64"}
+
+
+def test_comments_strings_and_preprocessor_untouched() -> None:
+    lines = SNIPPET.splitlines()
+    for m in _mutants():
+        text = lines[m.line - 1]
+        # never inside a comment or a string
+        assert m.line not in (1, 11, 15), m.id
+        # the only preprocessor lines mutated are numeric #define bodies
+        if text.startswith("#"):
+            assert text.startswith("#define AD_") and m.operator in ("const", "loop"), m.id
+            assert "(" not in text.split()[1], m.id  # no function-like macro
+    assert not [m for m in _mutants() if m.line in (2, 5, 6, 8, 10)]
+
+
+def test_relational_and_boolean_and_arith_operators() -> None:
+    ms = _mutants()
+    rel = {(m.original, m.replacement, m.detail) for m in ms if m.operator == "rel"}
+    assert ("<", "<=", "boundary") in rel
+    assert ("<", ">", "reverse") in rel
+    assert (">=", ">", "boundary") in rel
+    assert any(m.operator == "bool" and m.original == "&&" and m.replacement == "||"
+               for m in ms)
+    arith = [(m.original, m.replacement) for m in ms if m.operator == "arith"]
+    assert ("*", "/") in arith and ("-", "+") in arith
+    # the pointer declarator `int *p` and the dereference `*p =` are not multiplications
+    assert len([a for a in arith if a[0] == "*"]) == 1
+
+
+def test_a_less_b_becomes_a_less_equal_b() -> None:
+    m = next(m for m in _mutants() if m.operator == "rel" and m.detail == "boundary"
+             and "(a < b)" in m.context)
+    assert "(a <= b)" in m.apply(SNIPPET)
+    assert m.apply(SNIPPET).count("<=") == SNIPPET.count("<=") + 1
+
+
+def test_constant_loop_status_and_range_operators() -> None:
+    ms = _mutants()
+    gas = [m for m in ms if m.operator == "const" and m.original == "287.05287"]
+    assert {m.detail for m in gas} == {"d4", "d6", "d9", "firmware"}
+    d6 = next(m for m in gas if m.detail == "d6")
+    assert float(d6.replacement) == pytest.approx(287.05387, abs=1e-9)
+    assert next(m for m in gas if m.detail == "firmware").replacement == "287.05"
+    loops = {(m.original, m.replacement) for m in ms if m.operator == "loop"}
+    assert ("4", "3") in loops and ("0", "1") in loops  # AD_STEPS and the loop's start
+    st = {(m.original, m.replacement) for m in ms if m.operator == "status"}
+    assert st == {("AD_OK", "AD_OUT_OF_RANGE"), ("AD_OUT_OF_RANGE", "AD_OK")}
+    rng = [m for m in ms if m.operator == "range"]
+    assert len(rng) == 1 and "if (0 && (a < b) && (a >= 0.190263))" in rng[0].apply(SNIPPET)
+
+
+def test_one_token_changed_per_mutant() -> None:
+    for m in _mutants():
+        out = m.apply(SNIPPET)
+        assert out[:m.start] == SNIPPET[:m.start]
+        assert out[m.start + len(m.replacement):] == SNIPPET[m.end:]
+
+
+def test_sample_is_deterministic_and_stratified() -> None:
+    ms = mutate.all_mutants(ROOT)
+    a = mutate.sample_mutants(ms, 40, 7)
+    b = mutate.sample_mutants(ms, 40, 7)
+    assert [m.id for m in a] == [m.id for m in b] and len(a) == 40
+    assert {m.operator for m in a} == set(mutate.OPERATORS)
+    assert [m.id for m in mutate.sample_mutants(ms, 40, 8)] != [m.id for m in a]
+
+
+def _pick(ms: list, **kw: object):  # noqa: ANN202 - a Mutant
+    return next(m for m in ms if all(getattr(m, k) == v for k, v in kw.items()))
+
+
+def test_small_run_kills_known_mutants_and_counts_add_up(tmp_path: Path) -> None:
+    _need_cc()
+    ms = mutate.all_mutants(ROOT)
+    # gas constant R of the default profile (binary64) mistyped in the 6th digit, and the
+    # status of an out-of-range argument turned into AD_OK: both must be killed
+    gas = next(m for m in ms if m.macro == "AD_R" and m.detail == "d6"
+               and m.configs == ["icao-binary64"])
+    status = next(m for m in ms if m.operator == "status" and m.original == "AD_OUT_OF_RANGE"
+                  and m.file.endswith("domains.c"))
+    picked = [gas, status] + [m for m in mutate.sample_mutants(ms, 10, 5)
+                              if m.id not in (gas.id, status.id)][:10]
+    report = mutate.run(ROOT, picked, len(ms), jobs=2, seed=5, sample=12, timeout=60.0,
+                        configs=list(mutate.CONFIGS), work=tmp_path)
+    by_id = {m["id"]: m for m in report["mutants"]}
+    assert by_id[gas.id]["outcome"] == "killed"
+    assert by_id[gas.id]["killed_by"] == "icao-binary64"
+    assert by_id[status.id]["outcome"] == "killed"
+    o = report["summary"]["overall"]
+    assert o["total"] == 12
+    assert (o["killed"] + o["killed_timeout"] + o["stillborn"] + o["survived"]
+            + o["not_built"]) == o["total"]
+    assert o["equivalent"] + o["gap"] + o["unclassified"] == o["survived"]
+    assert sum(c["total"] for c in report["summary"]["per_operator"].values()) == 12
+    for m in report["survivors"]:
+        assert m["classification"] in ("equivalent", "gap", "unclassified") and m["reason"]
+    text = mutate.text_summary(report)
+    assert "not certified flight software" in text
+    json.dumps(report, default=str)
+
+
+def test_cli_list_and_report(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert mutate.main(["--list", "--only", "temperature.c", "--sample", "5"]) == 0
+    out = capsys.readouterr().out
+    assert "5 mutants of" in out and "temperature.c" in out
+    _need_cc()
+    rep = tmp_path / "r.json"
+    assert mutate.main(["--only", "temperature.c", "--ops", "status", "--sample", "2",
+                        "--quiet", "--report", str(rep), "--workdir", str(tmp_path)]) == 0
+    data = json.loads(rep.read_text())
+    assert data["summary"]["overall"]["total"] == 2
+    assert data["note"].endswith("not certified flight software.")
