@@ -40,6 +40,11 @@ import pytest
 import airdata
 from airdata import units
 
+try:  # tests/ as a package
+    from . import oracle
+except ImportError:  # tests/ on sys.path
+    import oracle
+
 KT = 1852.0 / 3600.0  # knot in m/s, exact (international nautical mile)
 FT = 0.3048  # foot in m, exact (international foot)
 
@@ -234,6 +239,81 @@ def test_icao_sea_level_constants() -> None:
     _check_printed(prof.rho0, "1.22500", 0.5, "ICAO rho0")
     _check_printed(prof.a0, "340.294", 0.5, "ICAO a0")
     assert airdata.get_profile(None) is prof
+
+
+def _table_misses(prof: object) -> list[str]:
+    """Entries of ICAO_VALUES that the 50-digit oracle profile ``prof`` puts more than
+    half a unit of the printed last digit away."""
+    out = []
+    for h, row in ICAO_VALUES.items():
+        at = oracle.atmosphere(h, 0, prof)
+        for key, printed in row.items():
+            err = abs(at[_QUANTITY[key]] - oracle.mp.mpf(printed))
+            if err > oracle.mp.mpf(_unit(printed)) / 2:
+                out.append(f"{h} {key}")
+    return out
+
+
+@pytest.mark.parametrize(("h", "key", "printed"), _rows(ICAO_VALUES))
+def test_icao_doc7488_values_half_a_unit(h: float, key: str, printed: str) -> None:
+    """ICAO Doc 7488/3 / ISO 2533 (from memory), profile icao, to half a unit of the last
+    printed digit (a correctly rounded printing): an outside reference for the profile's
+    derived layer values, independent of both airdata and tests/oracle.py.
+
+    What it catches (computed with the oracle's constants slipped, see
+    test_icao_table_catches_slips): the pressure at a height h moves with R as
+    d ln p / d ln R = ln(p0/p), 1.50 at 11 km, 2.92 at 20 km, 7.32 at 51 km and 10.15 at
+    71 km, so half a unit of the printed pressures (2.2e-5 relative at 11 km, 1.3e-5 at
+    71 km) alone would catch a relative slip in R near 1e-6; with the printed values'
+    own rounding, a slip of 2e-6 in R or g0 (either sign) is caught, 1e-7 downward in R
+    (upward in g0) by the 51 km pressure, which lies 0.47 unit below its printed
+    66.939.  Any layer base moved by 1 m is caught by the temperatures printed to
+    0.001 K (a gradient of 0.001 K/m or more over the moved metre), the 71 km base by
+    the 80 km temperature.  Not caught: r0 (these are geopotential altitudes; r0 is
+    checked by the geometric-altitude 1976 table above and by
+    tests/test_constants_independent.py).
+
+    The six-digit layer pressures 5474.89, 868.019, 66.9389 and 3.95642 Pa often quoted
+    (from memory) are the U.S. 1976 values (R = 8314.32/28.9644, checked above); the ICAO
+    R = 287.05287 gives 5474.88, 868.016, 66.9385, 3.95639 and 22632.0 at 11 km, so the
+    ICAO rows use the five figures both standards print alike.
+    """
+    got = getattr(airdata.atmosphere(h, profile="icao"), _QUANTITY[key])
+    _check_printed(got, printed, 0.5, f"ICAO h = {h} m, {key}")
+
+
+_BASES = ("0", "11000", "20000", "32000", "47000", "51000", "71000")
+_SLIPS = ([("R", "287.05287", s) for s in ("2e-6", "-2e-6", "-1e-7")]
+          + [("g0", "9.80665", s) for s in ("2e-6", "-2e-6", "1e-7")])
+
+
+@pytest.mark.parametrize(("key", "value", "rel"), _SLIPS)
+def test_icao_table_catches_slips(key: str, value: str, rel: str) -> None:
+    """The slips the ICAO table test's docstring names do fail it (oracle evaluation of
+    the published equations with the slipped constant), and the unslipped constants
+    pass it."""
+    assert not _table_misses(oracle.PROFILES["icao"])
+    slipped = str(oracle.mp.mpf(value) * (1 + oracle.mp.mpf(rel)))
+    assert _table_misses(oracle.make_profile("icao", {key: slipped}))
+
+
+@pytest.mark.parametrize("i", range(1, 7))
+@pytest.mark.parametrize("shift", [1, -1])
+def test_icao_table_catches_a_layer_base_moved_by_1_m(i: int, shift: int) -> None:
+    """A layer base moved by 1 m fails the ICAO table test (oracle evaluation)."""
+    hb = list(_BASES)
+    hb[i] = str(int(hb[i]) + shift)
+    assert _table_misses(oracle.make_profile("icao", hb=hb))
+
+
+def test_icao_gas_constant_from_its_molar_mass() -> None:
+    """ICAO Doc 7488/3 (from memory) gives R* = 8314.32 J/(kmol K) and M0 = 28.964420
+    kg/kmol beside R = 287.05287 J/(kg K): their quotient rounds to the stated R, an
+    outside check on the profile's R (the 1976 M0 = 28.9644 gives 287.05307)."""
+    r = airdata.get_profile("icao").R
+    _check_printed(8314.32 / 28.964420, "287.05287", 0.5, "ICAO R*/M0")
+    _check_printed(r, "287.05287", 0.0, "ICAO R")
+    assert abs(airdata.get_profile("us1976").R - r) > 1e-4  # the two profiles differ
 
 
 # ---------------------------------------------------------------------------------------
