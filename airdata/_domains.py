@@ -70,7 +70,7 @@ def pressure(profile: Profile) -> Domain:
     binary64 kernel of ATM-3 rounds them outward, so that every valid altitude maps to
     a valid pressure.
     """
-    from .atmosphere import layer_of_altitude, layer_table, standard_pressure
+    from ._layers import layer_of_altitude, layer_table, standard_pressure
 
     t = layer_table(profile)
     h = np.array([profile.h_max, profile.h_min])

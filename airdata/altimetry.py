@@ -14,7 +14,7 @@ from numpy.typing import NDArray
 from . import _domains as dom
 from ._blocks import elementwise
 from ._inputs import ArrayLike, FloatOrArray, Inputs
-from .atmosphere import (
+from ._layers import (
     LayerTable,
     count_bases,
     layer_of_altitude,

@@ -44,8 +44,8 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from ._inputs import ArrayLike, Domain, Inputs
+from ._layers import layer_of_altitude, layer_table, standard_pressure, standard_temperature
 from .altimetry import altitude_of_pressure
-from .atmosphere import layer_of_altitude, layer_table, standard_pressure, standard_temperature
 from .chain import air_data
 from .pitot import RATIO_MAX, mach_from_ratio, ratio_from_mach
 from .profiles import GAMMA, Profile, get_profile

@@ -11,8 +11,8 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
+from ._layers import layer_table
 from .altimetry import altitude_of_density, altitude_of_pressure, density_range
-from .atmosphere import layer_table
 from .pitot import RATIO_LIMIT, RATIO_MAX, mach_from_ratio
 from .profiles import GAMMA, Profile, get_profile
 from .status import Status

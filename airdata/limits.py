@@ -45,9 +45,10 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
+from ._layers import layer_table
 from .aircraft import Aircraft
 from .altimetry import altitude_of_pressure
-from .atmosphere import atmosphere, layer_table
+from .atmosphere import atmosphere
 from .pitot import (
     RATIO_MAX,
     TINY_MACH,

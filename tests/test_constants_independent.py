@@ -50,7 +50,7 @@ mp = oracle.mp
 HALF_ULP = 0.5 + 1e-6
 #: Allowed distance of a quantity the library computes in binary64 from its rounded
 #: constants (gamma R, and the per-layer quotients m, k, c, n, sh, rho_b, kd of
-#: airdata.atmosphere.layer_table, which the C header copies): a few roundings, 4 ulps
+#: airdata._layers.layer_table, which the C header copies): a few roundings, 4 ulps
 #: (measured at most 1.6).  A slip of 1e-12 relative is still some 4500 ulps.
 COMPUTED_ULPS = 4.0
 #: Header constants computed in binary64 rather than rounded once.

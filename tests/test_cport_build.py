@@ -173,7 +173,7 @@ def test_double_double_low_parts_from_the_exact_constants(single: bool) -> None:
 
 
 def test_binary64_low_parts_are_the_references() -> None:
-    from airdata.atmosphere import dd_tables, layer_table  # noqa: PLC0415
+    from airdata._layers import dd_tables, layer_table  # noqa: PLC0415
     from airdata.profiles import ICAO  # noqa: PLC0415
 
     t, d = layer_table(ICAO), dd_tables(ICAO)

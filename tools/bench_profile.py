@@ -29,7 +29,7 @@ import airdata.pitot as pit
 from airdata import _domains as dom
 from airdata import bench
 from airdata._inputs import Inputs
-from airdata.atmosphere import layer_table
+from airdata._layers import layer_table
 from airdata.profiles import get_profile
 
 F64 = NDArray[np.float64]

@@ -9,7 +9,7 @@ Two value sets per profile (ICAO Doc 7488/3 and U.S. Standard Atmosphere 1976):
 
 binary64
     The very binary64 values the Python reference computes with (``airdata.profiles``,
-    ``airdata.atmosphere.layer_table``, ``airdata._domains``, ``airdata.pitot``), so the
+    ``airdata._layers.layer_table``, ``airdata._domains``, ``airdata.pitot``), so the
     double build mirrors the reference bit for bit up to libm rounding.
 binary32
     Every constant correctly rounded to binary32 from its exact definition, evaluated
@@ -191,7 +191,7 @@ def exact(profile) -> dict[str, object]:  # noqa: ANN001
 
 def binary64(profile) -> dict[str, object]:  # noqa: ANN001
     """The binary64 values the Python reference uses."""
-    atm = _mod("airdata.atmosphere")
+    atm = _mod("airdata._layers")
     pit = _mod("airdata.pitot")
     alt = _mod("airdata.altimetry")
     gamma = _mod("airdata.profiles").GAMMA
