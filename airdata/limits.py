@@ -53,6 +53,7 @@ from .pitot import (
     RATIO_MAX,
     TINY_MACH,
     TINY_SCALE,
+    impact_from_mach,
     mach_from_ratio,
     ratio_from_mach,
     tiny_linear,
@@ -357,7 +358,7 @@ def _cas_limit_qc(args: Inputs, prof: Profile) -> F64:
     over = m0 > dom.MACH_MAX
     args.flag(over, Status.OUT_OF_RANGE, "cas_limit", args["cas_limit"],
               f"(0, {dom.MACH_MAX * prof.a0!r}] m/s")
-    return prof.p0 * ratio_from_mach(np.where(over, 0.0, m0))
+    return impact_from_mach(np.where(over, 0.0, m0), prof.p0)
 
 
 def crossover_altitude(
@@ -428,7 +429,7 @@ def _limit_args(strict: bool, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: A
     args = Inputs(strict, ps=(ps, dom.pressure(prof)), cas_limit=(cas_limit, CAS_LIMIT),
                   mach_limit=(mach_limit, MACH_LIMIT))
     qc_cas = _cas_limit_qc(args, prof)
-    qc_mach = args["ps"] * ratio_from_mach(args["mach_limit"])
+    qc_mach = impact_from_mach(args["mach_limit"], args["ps"])
     return args, qc_cas, qc_mach
 
 

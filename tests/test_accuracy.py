@@ -843,6 +843,12 @@ UNDERFLOW_POINTS = [
       (1e-300, 1e-307, 1e-310, 1e-315, 1e-320, 1e-323, 5e-324)],
     *[("mach_from_impact_pressure", (q, p)) for q in (1e-305, 1e-310, 1e-320, 5e-324)
       for p in (54019.9, 0.3734, 177687.0)],
+    # forward: M^2 (or (cas/a0)^2) subnormal while qc itself is still normal
+    *[("impact_pressure_from_cas", (c,)) for c in
+      (1.959109702592575e-154, 3e-154, 1e-155, 1e-160, 1e-300, 5e-324)],
+    *[("impact_pressure_from_mach", (m, p)) for m in (5.8e-157, 1e-155, 1e-160, 1e-170)
+      for p in (54019.9, 0.3734, 177687.0)],
+    *[("max_operating_cas", (54019.9, c, 1e-155)) for c in (1e-150, 1e-152)],
     *[("cas_from_mach", (m, 54019.9)) for m in (1e-300, 1e-308, 1e-310, 1e-320, 5e-324)],
     *[("mach_from_cas", (c, p)) for c in (1e-300, 1e-310, 1e-320, 5e-324)
       for p in (54019.9, 1.0)],

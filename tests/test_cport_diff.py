@@ -410,6 +410,31 @@ def test_tiny_mach_conversions_keep_their_size(precision: str) -> None:
             assert abs(back / float(mpmath.mpf(c) / a0 / k) - 1) <= 4 * eps, (c, p, back)
 
 
+@pytest.mark.parametrize("precision", ["double", "single"])
+def test_tiny_mach_impact_pressure_keeps_its_precision(precision: str) -> None:
+    # qc = ps f(M) where M^2 is subnormal but qc is normal: below Mach 2^-40 f(M) is
+    # 0.7 M^2 to within roundoff (NACA Report 1135 eq. 44, first-order term; the next is
+    # 0.25 M^2 relative).  Squaring M first loses up to 1e-11 (binary64) of qc.  mpmath
+    # at 50 digits with ICAO Doc 7488/3 p0 = 101325 Pa, a0 from R = 287.05287 and
+    # T0 = 288.15 K (from memory).
+    import mpmath  # noqa: PLC0415
+
+    machs = [5.8e-157, 1e-155, 3e-155] if precision == "double" else [1e-21, 5e-21, 3e-20]
+    machs = [float(np.float32(m)) if precision == "single" else m for m in machs]
+    eps = EPS[precision]
+    with mpmath.workdps(50):
+        a0 = mpmath.sqrt(mpmath.mpf("1.4") * mpmath.mpf("287.05287") * mpmath.mpf("288.15"))
+        for m, p in itertools.product(machs, [101325.0, 2000.0, 160000.0]):
+            qc = float(cport.impact_pressure_from_mach(m, p, precision=precision))
+            exact = mpmath.mpf("0.7") * mpmath.mpf(p) * mpmath.mpf(m) ** 2
+            assert abs(qc / float(exact) - 1) <= 3 * eps, (m, p, qc)
+        for m in machs:
+            c = float(np.float32(float(a0 * m))) if precision == "single" else float(a0 * m)
+            qc = float(cport.impact_pressure_from_cas(c, precision=precision))
+            exact = mpmath.mpf("0.7") * 101325 * (mpmath.mpf(c) / a0) ** 2
+            assert abs(qc / float(exact) - 1) <= 4 * eps, (c, qc)
+
+
 _DERIVED = {  # function: (input from the derived value v, derived value, its range end)
     "mach_from_impact_pressure": (lambda v: (v, 1.0), lambda a: a[0] / a[1], RATIO_MAX),
     "cas_from_impact_pressure": (lambda v: (v * _P0,), lambda a: a[0] / _P0, RATIO_MAX),

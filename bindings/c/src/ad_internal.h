@@ -73,6 +73,7 @@ ad_real ad_i_altitude_of_density(ad_real p, ad_real temp, ad_real rho);
 
 /* pitot.c */
 ad_real ad_i_ratio_from_mach(ad_real m);
+ad_real ad_i_impact_from_mach(ad_real m, ad_real p);
 ad_real ad_i_mach_from_ratio(ad_real x);
 ad_real ad_i_tiny_up(ad_real v);
 ad_real ad_i_mach_from_pressures(ad_real qc, ad_real p);

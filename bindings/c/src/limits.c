@@ -199,7 +199,7 @@ static ad_status ad_cas_limit_qc(ad_real cas_limit, ad_real *qc)
 {
     const ad_real m0 = cas_limit / AD_A0;
     const ad_status st = (m0 > AD_MACH_HI) ? AD_OUT_OF_RANGE : AD_OK;
-    *qc = (st == AD_OK) ? (AD_P0 * ad_i_ratio_from_mach(m0)) : (ad_real)0;
+    *qc = (st == AD_OK) ? ad_i_impact_from_mach(m0, AD_P0) : (ad_real)0;
     return st;
 }
 
@@ -245,7 +245,7 @@ static ad_status ad_limit_qc(ad_real ps, ad_real cas_limit, ad_real mach_limit,
         st = ad_cas_limit_qc(cas_limit, qc_cas);
     }
     if (st == AD_OK) {
-        *qc_mach = ps * ad_i_ratio_from_mach(mach_limit);
+        *qc_mach = ad_i_impact_from_mach(mach_limit, ps);
     }
     return st;
 }

@@ -169,6 +169,22 @@ ad_real ad_i_mach_of_cas(ad_real cas, ad_real k, ad_real x)
     return m;
 }
 
+/*
+ * PIT-1 times a pressure: qc = p f(M) (airdata/pitot.py impact_from_mach).  Below
+ * AD_TINY_MACH f(M) = 0.7 M^2 to within roundoff (next term 0.25 M^2 relative), taken
+ * as ((0.7 p) M) M so that no intermediate is subnormal where qc itself is normal.
+ */
+ad_real ad_i_impact_from_mach(ad_real m, ad_real p)
+{
+    ad_real qc;
+    if (m < AD_TINY_MACH) {
+        qc = ((AD_K_0P7 * p) * m) * m;
+    } else {
+        qc = p * ad_i_ratio_from_mach(m);
+    }
+    return qc;
+}
+
 /* PIT-1: qc = ps f(M). */
 ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
 {
@@ -180,7 +196,7 @@ ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
     if (st == AD_OK) {
         st = ad_i_check(ps, AD_DOM_PRESSURE);
     }
-    *qc = (st == AD_OK) ? (ps * ad_i_ratio_from_mach(mach)) : ad_nan();
+    *qc = (st == AD_OK) ? ad_i_impact_from_mach(mach, ps) : ad_nan();
     return st;
 }
 
@@ -216,7 +232,7 @@ ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc)
         m = cas / AD_A0;
         st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *qc = (st == AD_OK) ? (AD_P0 * ad_i_ratio_from_mach(m)) : ad_nan();
+    *qc = (st == AD_OK) ? ad_i_impact_from_mach(m, AD_P0) : ad_nan();
     return st;
 }
 
