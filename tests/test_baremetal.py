@@ -11,12 +11,12 @@ from __future__ import annotations
 
 import json
 import os
-import shutil
 import subprocess
 import sys
 from pathlib import Path
 
 import pytest
+from toolchains import need
 
 ROOT = Path(__file__).resolve().parents[1]
 C_DIR = ROOT / "bindings" / "c"
@@ -24,8 +24,6 @@ M4_DIR = C_DIR / "cross" / "m4"
 RUNNER = C_DIR / "runner" / "ad_vector_runner.c"
 PORT = sorted((C_DIR / "src").glob("*.c"))
 VECTORS = ROOT / "vectors"
-PACKAGES = {"arm-none-eabi-gcc": "gcc-arm-none-eabi libnewlib-arm-none-eabi",
-            "qemu-system-arm": "qemu-system-arm"}
 CFLAGS = ["-std=c99", "-mcpu=cortex-m4", "-mthumb", "-mfpu=fpv4-sp-d16", "-mfloat-abi=hard",
           "-O2", "-ffp-contract=off", "-ffunction-sections", "-fdata-sections", "-Wall",
           "-Wextra", "-Werror"]
@@ -36,19 +34,8 @@ QEMU = ["-M", "mps2-an386", "-cpu", "cortex-m4", "-nographic", "-monitor", "none
 PRECISIONS = {"binary64": [], "binary32": ["-DAIRDATA_SINGLE"]}
 
 
-def tool(name: str) -> str:
-    """Path of a tool; skip (or fail under AIRDATA_REQUIRE_TOOLCHAINS=1) if absent."""
-    path = shutil.which(name)
-    if path is None:
-        msg = f"{name} not found (Debian package: {PACKAGES.get(name, '?')})"
-        if os.environ.get("AIRDATA_REQUIRE_TOOLCHAINS") == "1":
-            pytest.fail(msg + "; AIRDATA_REQUIRE_TOOLCHAINS=1 requires it")
-        pytest.skip(msg)
-    return path
-
-
 def _build(out: Path, sources: list[Path], *flags: str) -> Path:
-    cc = tool("arm-none-eabi-gcc")
+    cc = need("arm-none-eabi-gcc")
     r = subprocess.run([cc, *CFLAGS, *flags, f"-I{C_DIR / 'include'}", f"-I{VECTORS / 'c'}",
                         str(M4_DIR / "startup.c"), *map(str, sources), *LINK, "-o", str(out)],
                        capture_output=True, text=True, timeout=600)
@@ -57,7 +44,7 @@ def _build(out: Path, sources: list[Path], *flags: str) -> Path:
 
 
 def _qemu(elf: Path) -> subprocess.CompletedProcess[str]:
-    return subprocess.run([tool("qemu-system-arm"), *QEMU, str(elf)], capture_output=True,
+    return subprocess.run([need("qemu-system-arm"), *QEMU, str(elf)], capture_output=True,
                           text=True, timeout=300)
 
 

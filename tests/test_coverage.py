@@ -22,6 +22,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 
 import pytest
+from toolchains import need
 
 ROOT = Path(__file__).resolve().parents[1]
 C_DIR = ROOT / "bindings" / "c"
@@ -29,10 +30,6 @@ SRC = C_DIR / "src"
 PORT = sorted(SRC.glob("*.c"))
 RUNNER = C_DIR / "runner" / "ad_vector_runner.c"
 VECTORS_C = ROOT / "vectors" / "c"
-GCC = shutil.which("gcc")
-GCOV = shutil.which("gcov")
-
-pytestmark = pytest.mark.skipif(GCC is None or GCOV is None, reason="gcc and gcov needed")
 
 # --- gcov ----------------------------------------------------------------------------
 
@@ -105,11 +102,11 @@ def parse_gcov(path: Path) -> Coverage:
 
 def measure(objdir: Path) -> Coverage:
     """Run gcov -b -c on every port source and parse its .gcov files."""
-    assert GCOV is not None
+    gcov = need("gcov")
     outdir = objdir / "gcov"
     shutil.rmtree(outdir, ignore_errors=True)
     outdir.mkdir()
-    r = subprocess.run([GCOV, "-b", "-c", "-o", str(objdir), *map(str, PORT)], cwd=outdir,
+    r = subprocess.run([gcov, "-b", "-c", "-o", str(objdir), *map(str, PORT)], cwd=outdir,
                        capture_output=True, text=True, timeout=120)
     assert r.returncode == 0, r.stderr
     # gcov's own summary must agree with the per-line parse (two readings of one run)
@@ -141,7 +138,7 @@ def _report(title: str, cov: Coverage) -> str:
 @pytest.fixture(scope="module")
 def coverage(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Coverage]:
     """Coverage of the vector runner alone: 'binary64', 'binary32' and 'both'."""
-    assert GCC is not None
+    gcc = need("gcc")
     out: dict[str, Coverage] = {}
     for precision, extra in (("binary64", []), ("binary32", ["-DAIRDATA_SINGLE"])):
         tmp = tmp_path_factory.mktemp(f"cov{precision}")
@@ -150,12 +147,12 @@ def coverage(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Coverage]:
         objs = []
         for src in PORT:
             obj = tmp / f"{src.stem}.o"
-            r = subprocess.run([GCC, *flags, "-c", str(src), "-o", str(obj)],
+            r = subprocess.run([gcc, *flags, "-c", str(src), "-o", str(obj)],
                                capture_output=True, text=True, timeout=300)
             assert r.returncode == 0, r.stderr
             objs.append(str(obj))
         exe = tmp / "runner"
-        r = subprocess.run([GCC, *flags, "-Wall", "-Wextra", "-Werror", str(RUNNER), *objs,
+        r = subprocess.run([gcc, *flags, "-Wall", "-Wextra", "-Werror", str(RUNNER), *objs,
                             "-lm", "-o", str(exe)], capture_output=True, text=True,
                            timeout=300)
         assert r.returncode == 0, r.stderr[-3000:]
@@ -224,13 +221,13 @@ def test_vectors_alone_per_precision(coverage: dict[str, Coverage], precision: s
 def _runner_with(tmp: Path, rename: str, shim: str) -> subprocess.CompletedProcess[str]:
     """The runner linked with the port, one function renamed in some sources and
     replaced by a shim calling the renamed original."""
-    assert GCC is not None
+    gcc = need("gcc")
     fn, where = rename.split("@")
     objs = []
     for src in PORT:
         obj = tmp / f"{src.stem}.o"
         extra = [f"-D{fn}={fn}_real"] if src.name in where.split(",") else []
-        r = subprocess.run([GCC, "-std=c99", "-O1", "-ffp-contract=off", *extra,
+        r = subprocess.run([gcc, "-std=c99", "-O1", "-ffp-contract=off", *extra,
                             f"-I{C_DIR / 'include'}", "-c", str(src), "-o", str(obj)],
                            capture_output=True, text=True, timeout=300)
         assert r.returncode == 0, r.stderr[-2000:]
@@ -238,7 +235,7 @@ def _runner_with(tmp: Path, rename: str, shim: str) -> subprocess.CompletedProce
     shim_c = tmp / "shim.c"
     shim_c.write_text('#include "airdata.h"\n' + shim)
     exe = tmp / "runner"
-    r = subprocess.run([GCC, "-std=c99", "-O1", "-ffp-contract=off", f"-I{C_DIR / 'include'}",
+    r = subprocess.run([gcc, "-std=c99", "-O1", "-ffp-contract=off", f"-I{C_DIR / 'include'}",
                         f"-I{VECTORS_C}", str(RUNNER), str(shim_c), *objs, "-lm", "-o",
                         str(exe)], capture_output=True, text=True, timeout=300)
     assert r.returncode == 0, r.stderr[-2000:]

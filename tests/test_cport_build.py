@@ -8,8 +8,6 @@ from __future__ import annotations
 
 import importlib.util
 import math
-import os
-import shutil
 import subprocess
 import sys
 from fractions import Fraction
@@ -17,6 +15,7 @@ from pathlib import Path
 
 import mpmath
 import pytest
+from toolchains import need
 
 ROOT = Path(__file__).resolve().parents[1]
 C_DIR = ROOT / "bindings" / "c"
@@ -37,17 +36,6 @@ def _gen():  # noqa: ANN202 - module object
     sys.modules["gen_constants"] = mod
     spec.loader.exec_module(mod)
     return mod
-
-
-def need(tool: str) -> str:
-    """Path of ``tool``; skip (or fail under AIRDATA_REQUIRE_TOOLCHAINS=1) without it."""
-    path = shutil.which(tool)
-    if path is None:
-        msg = f"{tool} not found on PATH (apt-get install {tool})"
-        if os.environ.get("AIRDATA_REQUIRE_TOOLCHAINS") == "1":
-            pytest.fail(msg + " and AIRDATA_REQUIRE_TOOLCHAINS=1")
-        pytest.skip(msg)
-    return path
 
 
 def run(cmd: list[str], cwd: Path | None = None) -> subprocess.CompletedProcess[str]:

@@ -36,7 +36,13 @@ Measured worst ratios (2026-12-01, gcc 12.2 -O1, glibc libm, ICAO profile), each
 "diff" is the seeded sweep of this module (port against the binary64 reference, whose
 libm is numpy's); "vectors" is the vector runner (bindings/c/runner) against the
 checked-in vectors, i.e. 8 times its "worst ... of bound" (the expected values are
-mpmath's rounded to binary64, so binary64 rows of 0 mean every result equalled it).
+the binary64 reference's outputs, each within the bound of the 50-digit mpmath oracle
+by tests/test_vectors_oracle.py; binary64 rows of 0 mean every result equalled them).
+
+The harness counts what it compared (``Comparison.statuses``, ``Comparison.values``):
+each test asserts the count, so a harness that compares nothing fails, and
+``test_comparison_detects_a_wrong_port`` drives ``compare()`` with ports that are
+wrong by 1e-12 relative or in one status.
 
     ==========================  =========  =========  =========  =========
     function                    diff b64   diff b32   vec b64    vec b32
@@ -311,22 +317,37 @@ class Comparison:
     worst_excused: float = 0.0
     status_mismatches: list[str] = field(default_factory=list)
     value_failures: list[str] = field(default_factory=list)
+    statuses: int = 0  # elements whose status was compared
+    values: int = 0  # output values compared against the bound
 
 
-def compare(spec: Spec, raw: Sequence[F64], precision: str, exact_status: bool = True
-            ) -> Comparison:
-    """Compare port and reference on the inputs built from ``raw``."""
+PortFn = Callable[[Spec, Sequence[F64], str], tuple[F64, NDArray[np.uint8]]]
+
+
+def compare(spec: Spec, raw: Sequence[F64], precision: str, exact_status: bool = True,
+            port_fn: PortFn | None = None) -> Comparison:
+    """Compare port and reference on the inputs built from ``raw``.
+
+    ``exact_status=False`` takes an OK element's expected status from the reference's
+    batch call instead of one scalar call per element (faster; same statuses).
+    ``port_fn`` replaces the bundled port (the harness's self-test).
+    """
     args = [np.asarray(a, dtype=np.float64) for a in spec.build(list(raw))]
     res = Comparison()
     y_ref = reference(spec, args)
-    y_port, st_port = port(spec, args, precision)
+    y_port, st_port = (port_fn or port)(spec, args, precision)
     ref_bad = np.isnan(y_ref[:, 0]) if spec.name != "air_data" else np.isnan(y_ref[:, 2])
+    batch_status = None
+    if not exact_status and spec.name == "air_data":
+        with np.errstate(all="ignore"):
+            batch_status = np.asarray(airdata.air_data(*args, strict=False).status)
     for k in range(len(args[0])):
         if exact_status or ref_bad[k] or st_port[k] not in (0, 4):
             want = reference_status(spec, [a[k] for a in args])
         else:
-            want = int(Status.OK) if spec.name != "air_data" else int(st_port[k])
+            want = int(Status.OK) if batch_status is None else int(batch_status[k])
         got = int(st_port[k])
+        res.statuses += 1
         if got != want and not (precision == "single"
                                 and got in acceptable_single(spec, args, k)):
             res.status_mismatches.append(
@@ -342,6 +363,7 @@ def compare(spec: Spec, raw: Sequence[F64], precision: str, exact_status: bool =
         ratio = np.where(err == 0, 0.0, err / (EPS[precision] * s))
     both_nan = np.isnan(y_port[ok]) & np.isnan(y_ref[ok])  # baro_altitude without setting
     ratio = np.where(both_nan, 0.0, ratio)
+    res.values = int((~both_nan).sum())
     ratio = np.where(np.isnan(ratio), np.inf, ratio)
     if precision == "single":
         near = np.zeros(sub[0].shape, dtype=bool)
@@ -491,6 +513,7 @@ def _make_test(spec: Spec, precision: str) -> Callable[..., None]:
     @given(raw=_batch(spec))
     def test(raw: list[F64]) -> None:
         res = compare(spec, raw, precision)
+        assert res.statuses == len(raw[0]) >= 1
         assert not res.status_mismatches, res.status_mismatches[:5]
         assert not res.value_failures, res.value_failures
 
@@ -540,18 +563,45 @@ def test_sweep_worst_ratio_within_bound(precision: str) -> None:
     assert not failures, failures
     for name, r in results.items():
         assert r.worst <= K, name
+        # every status is compared, and at least 15 % of the elements give values (the
+        # fewest, measured: mach_from_eas 481 and mach_from_cas 492 of 3000, whose
+        # speed and pressure drawn independently often make Mach > 10; the rest >= 1256)
+        assert r.statuses == SWEEP_N, name
+        assert r.values >= 0.15 * SWEEP_N * max(1, len(BY_NAME[name].outputs)), (
+            name, r.values)
 
 
-def test_comparison_detects_a_wrong_port() -> None:
-    # The harness itself must fail on a port that is off by far more than the bound:
-    # feed it the reference at a shifted input as if it were the port.
-    spec = BY_NAME["pressure_altitude"]
-    args = [np.array([50000.0, 20000.0])]
-    y_ref = reference(spec, args)
-    y_wrong = reference(spec, [args[0] * (1 + 1e-9)])
-    s = scale(spec, args, y_ref)
-    ratio = np.abs(y_wrong - y_ref) / (EPS["double"] * s)
-    assert (ratio > K).all()
+def _off_by(rel: float) -> PortFn:
+    def wrong(spec: Spec, args: Sequence[F64], precision: str
+              ) -> tuple[F64, NDArray[np.uint8]]:
+        y, st = port(spec, args, precision)
+        return y * (1.0 + rel), st
+    return wrong
+
+
+def _status_flipped(spec: Spec, args: Sequence[F64], precision: str
+                    ) -> tuple[F64, NDArray[np.uint8]]:
+    y, st = port(spec, args, precision)
+    st = st.copy()
+    st[0] = 2 if st[0] == 0 else 0  # one element: OK <-> OUT_OF_RANGE
+    return y, st
+
+
+@pytest.mark.parametrize("name", ["pressure_altitude", "atmosphere", "air_data",
+                                  "cas_from_mach"])
+def test_comparison_detects_a_wrong_port(name: str) -> None:
+    # compare() itself, driven with deliberately wrong ports: 1e-12 relative (about
+    # 4500 ulp in binary64, far beyond K) must fail the values, one flipped status the
+    # statuses, and the real port must pass with every value counted.
+    spec = BY_NAME[name]
+    raw = sweep_inputs(spec, n=200)
+    good = compare(spec, raw, "double", exact_status=False)
+    assert not good.value_failures and not good.status_mismatches
+    assert good.statuses == 200 and good.values >= 100
+    bad = compare(spec, raw, "double", exact_status=False, port_fn=_off_by(1e-12))
+    assert bad.value_failures and bad.worst > K
+    flipped = compare(spec, raw, "double", exact_status=False, port_fn=_status_flipped)
+    assert flipped.status_mismatches
 
 
 def main() -> None:

@@ -16,12 +16,12 @@ from __future__ import annotations
 import json
 import os
 import re
-import shutil
 import struct
 import subprocess
 from pathlib import Path
 
 import pytest
+from toolchains import need
 
 ROOT = Path(__file__).resolve().parents[1]
 C_DIR = ROOT / "bindings" / "c"
@@ -29,28 +29,10 @@ RUNNER = C_DIR / "runner" / "ad_vector_runner.c"
 PORT = sorted((C_DIR / "src").glob("*.c"))
 VECTORS = ROOT / "vectors"
 
-PACKAGES = {
-    "arm-linux-gnueabihf-gcc": "gcc-arm-linux-gnueabihf libc6-dev-armhf-cross",
-    "qemu-arm": "qemu-user",
-    "arm-none-eabi-gcc": "gcc-arm-none-eabi libnewlib-arm-none-eabi",
-    "arm-none-eabi-size": "binutils-arm-none-eabi",
-    "arm-none-eabi-nm": "binutils-arm-none-eabi",
-}
 PRECISIONS = {"binary64": [], "binary32": ["-DAIRDATA_SINGLE"]}
 M4 = ["-std=c99", "-mcpu=cortex-m4", "-mthumb", "-mfpu=fpv4-sp-d16", "-mfloat-abi=hard",
       "-Os", "-ffunction-sections", "-fdata-sections", "-ffreestanding", "-ffp-contract=off",
       "-Wall", "-Wextra", "-Wpedantic", "-Wconversion", "-Wdouble-promotion", "-Werror"]
-
-
-def tool(name: str) -> str:
-    """Path of a cross tool; skip (or fail under AIRDATA_REQUIRE_TOOLCHAINS=1) if absent."""
-    path = shutil.which(name)
-    if path is None:
-        msg = f"{name} not found (Debian package: {PACKAGES.get(name, '?')})"
-        if os.environ.get("AIRDATA_REQUIRE_TOOLCHAINS") == "1":
-            pytest.fail(msg + "; AIRDATA_REQUIRE_TOOLCHAINS=1 requires it")
-        pytest.skip(msg)
-    return path
 
 
 def _manifest_counts() -> dict[str, int]:
@@ -70,8 +52,8 @@ def _summary(out: str) -> dict[str, tuple[int, int, int]]:
 
 @pytest.fixture(scope="module")
 def arm_runs(tmp_path_factory: pytest.TempPathFactory) -> dict[str, tuple[Path, str, int]]:
-    cc = tool("arm-linux-gnueabihf-gcc")
-    qemu = tool("qemu-arm")
+    cc = need("arm-linux-gnueabihf-gcc")
+    qemu = need("qemu-arm")
     tmp = tmp_path_factory.mktemp("arm")
     out = {}
     for name, flags in PRECISIONS.items():
@@ -119,7 +101,7 @@ def test_arm_runner_passes_every_vector(arm_runs: dict, precision: str) -> None:
 
 @pytest.fixture(scope="module")
 def m4_objects(tmp_path_factory: pytest.TempPathFactory) -> dict[str, list[Path]]:
-    cc = tool("arm-none-eabi-gcc")
+    cc = need("arm-none-eabi-gcc")
     tmp = tmp_path_factory.mktemp("m4")
     out: dict[str, list[Path]] = {}
     for name, flags in PRECISIONS.items():
@@ -135,7 +117,7 @@ def m4_objects(tmp_path_factory: pytest.TempPathFactory) -> dict[str, list[Path]
 
 
 def _sizes(objs: list[Path]) -> dict[str, tuple[int, int, int]]:
-    size = tool("arm-none-eabi-size")
+    size = need("arm-none-eabi-size")
     r = subprocess.run([size, *map(str, objs)], capture_output=True, text=True, timeout=60,
                        check=True)
     rows = {}
@@ -162,7 +144,7 @@ def test_m4_port_size_and_no_mutable_state(m4_objects: dict, precision: str) -> 
 def test_m4_binary32_build_does_no_binary64_arithmetic(m4_objects: dict) -> None:
     # On a single-precision FPU any double operation becomes an EABI helper call
     # (__aeabi_d*, __aeabi_f2d; ARM run-time ABI) or a call of a double libm function.
-    nm = tool("arm-none-eabi-nm")
+    nm = need("arm-none-eabi-nm")
     doubles = {"exp", "log", "log1p", "expm1", "sqrt", "pow", "fabs", "floor"}
     for obj in m4_objects["binary32"]:
         r = subprocess.run([nm, "-u", str(obj)], capture_output=True, text=True, timeout=60,
@@ -176,12 +158,3 @@ def test_m4_binary32_build_does_no_binary64_arithmetic(m4_objects: dict) -> None
                        text=True, timeout=60, check=True)
     assert "__aeabi_dadd" in r.stdout or "__aeabi_dmul" in r.stdout
 
-
-def test_missing_tool_skips_or_fails_as_configured(monkeypatch: pytest.MonkeyPatch) -> None:
-    monkeypatch.setattr(shutil, "which", lambda name: None)
-    monkeypatch.delenv("AIRDATA_REQUIRE_TOOLCHAINS", raising=False)
-    with pytest.raises(pytest.skip.Exception, match="qemu-user"):
-        tool("qemu-arm")
-    monkeypatch.setenv("AIRDATA_REQUIRE_TOOLCHAINS", "1")
-    with pytest.raises(pytest.fail.Exception, match="AIRDATA_REQUIRE_TOOLCHAINS=1"):
-        tool("qemu-arm")

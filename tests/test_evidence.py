@@ -15,7 +15,6 @@ import csv
 import ctypes
 import json
 import os
-import shutil
 import subprocess
 import sys
 from dataclasses import dataclass
@@ -25,6 +24,7 @@ from pathlib import Path
 from typing import Any
 
 import pytest
+from toolchains import need
 
 import airdata
 
@@ -43,17 +43,6 @@ WEATHER_ARGS = ["--precision", "double", "--source",
                 str(DATA / "ports" / "weather_constants_port.c"),
                 "--only", "pressure_altitude", "--implements", "pressure_altitude",
                 "--requirements", str(DATA / "requirements" / "weather_constants.toml")]
-
-
-def need(tool: str) -> str:
-    """Path of ``tool``; skip (or fail under AIRDATA_REQUIRE_TOOLCHAINS=1) without it."""
-    path = shutil.which(tool)
-    if path is None:
-        msg = f"{tool} not found on PATH"
-        if os.environ.get("AIRDATA_REQUIRE_TOOLCHAINS") == "1":
-            pytest.fail(msg + " and AIRDATA_REQUIRE_TOOLCHAINS=1")
-        pytest.skip(msg)
-    return path
 
 
 @dataclass

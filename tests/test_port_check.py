@@ -10,6 +10,7 @@ from pathlib import Path
 
 import numpy as np
 import pytest
+from toolchains import host_cc, host_compiler  # noqa: F401 - host_compiler: a fixture
 
 from airdata.cli import main
 from airdata.portcheck import verdict
@@ -19,8 +20,7 @@ from airdata.portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load
 
 ROOT = Path(__file__).resolve().parents[1]
 VECTORS = ROOT / "vectors"
-CC = shutil.which("gcc") or shutil.which("cc")
-needs_cc = pytest.mark.skipif(CC is None, reason="no C compiler on this machine")
+needs_cc = pytest.mark.usefixtures("host_compiler")
 
 
 @pytest.fixture(scope="session")
@@ -163,12 +163,11 @@ def test_user_source_passes_and_a_wrong_gas_constant_fails(tmp_path: Path,
 @needs_cc
 def test_library_of_the_bundled_port(tmp_path: Path, capsys: pytest.CaptureFixture[str]
                                      ) -> None:
-    assert CC is not None
     port = bundled_port()
     objs = []
     for s in port.sources:
         o = tmp_path / (s.stem + ".o")
-        r = subprocess.run([CC, "-std=c99", "-O2", "-fPIC", "-ffp-contract=off",
+        r = subprocess.run([host_cc(), "-std=c99", "-O2", "-fPIC", "-ffp-contract=off",
                             f"-I{ROOT / 'bindings/c/include'}", f"-I{s.parent}", "-c", str(s),
                             "-o", str(o)], capture_output=True, text=True, timeout=120)
         assert r.returncode == 0, r.stderr

@@ -4,11 +4,11 @@ a port with a subtle defect and a stub port that computes nothing."""
 from __future__ import annotations
 
 import re
-import shutil
 import subprocess
 from pathlib import Path
 
 import pytest
+from toolchains import host_cc, host_compiler  # noqa: F401 - host_compiler: a fixture
 
 from airdata.vectors.catalogue import CATALOGUE
 
@@ -19,15 +19,11 @@ VECTORS_C = ROOT / "vectors" / "c"
 PORT = sorted((ROOT / "bindings" / "c" / "src").glob("*.c"))
 STRICT = ["-std=c99", "-Wall", "-Wextra", "-Wpedantic", "-Werror", "-Wconversion",
           "-Wdouble-promotion", "-Wshadow"]
-CC = shutil.which("gcc") or shutil.which("cc")
-
-needs_cc = pytest.mark.skipif(CC is None, reason="no C compiler on this machine")
-needs_port = pytest.mark.skipif(not PORT, reason="bindings/c/src has no port sources yet")
+needs_cc = pytest.mark.usefixtures("host_compiler")
 
 
 def _compile(out: Path, sources: list[Path], *flags: str) -> None:
-    assert CC is not None
-    cmd = [CC, *STRICT, "-O1", "-ffp-contract=off", *flags, f"-I{INCLUDE}", f"-I{VECTORS_C}",
+    cmd = [host_cc(), *STRICT, "-O1", "-ffp-contract=off", *flags, f"-I{INCLUDE}", f"-I{VECTORS_C}",
            *[str(s) for s in sources], "-lm", "-o", str(out)]
     r = subprocess.run(cmd, capture_output=True, text=True, timeout=600)
     assert r.returncode == 0, r.stderr[-3000:]
@@ -57,8 +53,7 @@ def test_runner_calls_every_catalogue_function() -> None:
 @needs_cc
 @pytest.mark.parametrize("precision", [[], ["-DAIRDATA_SINGLE"]], ids=["binary64", "binary32"])
 def test_runner_compiles_as_strict_c99(precision: list[str]) -> None:
-    assert CC is not None
-    cmd = [CC, *STRICT, "-fsyntax-only", *precision, f"-I{INCLUDE}", f"-I{VECTORS_C}",
+    cmd = [host_cc(), *STRICT, "-fsyntax-only", *precision, f"-I{INCLUDE}", f"-I{VECTORS_C}",
            str(RUNNER)]
     r = subprocess.run(cmd, capture_output=True, text=True, timeout=600)
     assert r.returncode == 0, r.stderr[-3000:]
@@ -66,15 +61,13 @@ def test_runner_compiles_as_strict_c99(precision: list[str]) -> None:
 
 @needs_cc
 def test_runner_refuses_vectors_of_another_profile() -> None:
-    assert CC is not None
-    cmd = [CC, *STRICT, "-fsyntax-only", "-DAIRDATA_PROFILE_US1976", f"-I{INCLUDE}",
+    cmd = [host_cc(), *STRICT, "-fsyntax-only", "-DAIRDATA_PROFILE_US1976", f"-I{INCLUDE}",
            f"-I{VECTORS_C}", str(RUNNER)]
     r = subprocess.run(cmd, capture_output=True, text=True, timeout=600)
     assert r.returncode != 0 and "profile us1976" in r.stderr
 
 
 @needs_cc
-@needs_port
 def test_bundled_port_passes_every_vector_in_binary64(tmp_path: Path) -> None:
     exe = tmp_path / "runner64"
     _compile(exe, [RUNNER, *PORT])
@@ -89,8 +82,7 @@ def test_bundled_port_passes_every_vector_in_binary64(tmp_path: Path) -> None:
 @pytest.fixture(scope="module")
 def run32(tmp_path_factory: pytest.TempPathFactory) -> subprocess.CompletedProcess[str]:
     """The runner built with the bundled port in binary32, run once."""
-    if CC is None or not PORT:
-        pytest.skip("no C compiler or no port sources")
+    assert PORT, "bindings/c/src holds no port sources"
     exe = tmp_path_factory.mktemp("r32") / "runner32"
     _compile(exe, [RUNNER, *PORT], "-DAIRDATA_SINGLE")
     return _run(exe)
@@ -108,7 +100,6 @@ def test_bundled_port_passes_every_vector_in_binary32(
 
 
 @needs_cc
-@needs_port
 def test_runner_catches_a_subtle_defect_in_one_function(tmp_path: Path) -> None:
     """The port with dynamic_pressure off by a relative 1e-13 (about 450 ulp)."""
     shim = tmp_path / "shim.c"
@@ -121,8 +112,7 @@ def test_runner_catches_a_subtle_defect_in_one_function(tmp_path: Path) -> None:
     objs = []
     for src in PORT:
         obj = tmp_path / (src.stem + ".o")
-        assert CC is not None
-        r = subprocess.run([CC, "-std=c99", "-O1", "-c", f"-I{INCLUDE}",
+        r = subprocess.run([host_cc(), "-std=c99", "-O1", "-c", f"-I{INCLUDE}",
                             "-Dad_dynamic_pressure=ad_dynamic_pressure_real", str(src), "-o",
                             str(obj)], capture_output=True, text=True, timeout=600)
         assert r.returncode == 0, r.stderr[-2000:]

@@ -19,6 +19,7 @@ import html
 import io
 import json
 import math
+import os
 import platform
 import re
 import shutil
@@ -109,6 +110,12 @@ def _compiler_version(cc: str) -> str:
     return _bounded(out.splitlines()[0] if out else "unknown", 200)
 
 
+def cffi_compiler() -> str:
+    """The C compiler command cffi compiles with: ``$CC`` if set, else the interpreter's
+    build compiler (``sysconfig`` ``CC``), else ``cc`` -- the order setuptools uses."""
+    return os.environ.get("CC") or str(sysconfig.get_config_var("CC") or "cc")
+
+
 def environment(spec: Any = None, precision: str | None = None) -> dict[str, Any]:
     """The environment of a check: tool, host, compiler (cffi's) and port files.
 
@@ -119,7 +126,7 @@ def environment(spec: Any = None, precision: str | None = None) -> dict[str, Any
     precision : str, optional
         ``"double"`` or ``"single"`` (adds ``-DAIRDATA_SINGLE=1`` to the flags).
     """
-    cc = str(sysconfig.get_config_var("CC") or "cc")
+    cc = cffi_compiler()
     env: dict[str, Any] = {
         "date_utc": _dt.datetime.now(_dt.UTC).strftime("%Y-%m-%dT%H:%M:%SZ"),
         "airdata_version": __version__,
