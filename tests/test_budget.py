@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 
-import mpmath as mp
+import mpmath
 import numpy as np
 import pytest
 
@@ -23,7 +23,9 @@ from airdata.budget import (
     sensitivities,
 )
 
-mp.mp.dps = 50
+#: This module's own 50-digit context (mpmath's global one is left alone).
+mp = mpmath.MPContext()
+mp.dps = 50
 
 G0 = mp.mpf("9.80665")
 R = mp.mpf("287.05287")

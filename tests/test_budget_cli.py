@@ -58,7 +58,6 @@ def test_budget_errors_exit_1() -> None:
 
 
 def test_budget_plot_written(tmp_path: Path) -> None:
-    pytest.importorskip("matplotlib")
     png = tmp_path / "budget.png"
     res = run("budget", "--ps-noise", "0.5", "--pitot-noise", "0.3", "--plot", str(png))
     assert res.returncode == 0, res.stderr
@@ -66,7 +65,6 @@ def test_budget_plot_written(tmp_path: Path) -> None:
 
 
 def test_plot_budget_panels() -> None:
-    pytest.importorskip("matplotlib")
     b = error_budget([0.0, 5000.0, 10000.0], [80.0, 150.0, 220.0],
                      SensorAccuracy(ps_noise=50.0, pitot_noise=30.0))
     fig = plot_budget(b, ("pressure_altitude", "cas"))

@@ -12,6 +12,7 @@ import math
 import subprocess
 import sys
 
+import fluids
 import pytest
 
 from airdata.commands.quantities import parse_quantity
@@ -213,7 +214,6 @@ def test_convert_usage_errors() -> None:
 
 def test_table_against_fluids_us1976_atmosphere() -> None:
     # fluids.ATMOSPHERE_1976 (U.S. Standard Atmosphere 1976, geometric altitude input).
-    fluids = pytest.importorskip("fluids")
     r = airdata("table", "--from", "0km", "--to", "80km", "--step", "5km", "--geometric",
                 "--profile", "us1976", "--si", "--csv")
     assert r.returncode == 0, r.stderr

@@ -299,6 +299,7 @@ def test_usage_errors_exit_2(tmp_path: Path) -> None:
 
 # ----------------------------------------------------------------------------- progress
 
+@pytest.mark.skipif(sys.platform == "win32", reason="pty: POSIX terminals only")
 def test_progress_bar_only_on_a_terminal(tmp_path: Path) -> None:
     out = tmp_path / "out.csv"
     args = [sys.executable, "-m", "airdata", "reduce", str(DEMO), "-o", str(out), "-q"]
@@ -327,7 +328,6 @@ def test_progress_bar_only_on_a_terminal(tmp_path: Path) -> None:
 # ----------------------------------------------------------------------------- plot, port
 
 def test_plot_draws_a_png(tmp_path: Path) -> None:
-    pytest.importorskip("matplotlib")
     png = tmp_path / "flight.png"
     r = airdata_cmd("reduce", str(DEMO), "-o", str(tmp_path / "o.csv"), "--plot", str(png),
                     "-q")
@@ -348,7 +348,6 @@ def test_plot_without_matplotlib_is_a_clear_error(tmp_path: Path) -> None:
 
 
 def test_engine_cport_and_compare_on_the_demo(tmp_path: Path) -> None:
-    pytest.importorskip("airdata._cport64")
     out = tmp_path / "port.csv"
     r = airdata_cmd("reduce", str(DEMO), "-o", str(out), "--engine", "cport", "--compare",
                     "--json", "--si")

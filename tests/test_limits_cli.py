@@ -56,7 +56,6 @@ def test_limits_help_has_caution() -> None:
 
 
 def test_limits_plot_written(tmp_path: Path) -> None:
-    pytest.importorskip("matplotlib")
     png = tmp_path / "env.png"
     res = run("limits", str(DEMO), "--plot", str(png))
     assert res.returncode == 0, res.stderr
@@ -64,7 +63,6 @@ def test_limits_plot_written(tmp_path: Path) -> None:
 
 
 def test_plot_envelope_axes() -> None:
-    pytest.importorskip("matplotlib")
     fig = plot_envelope(envelope(DEMO))
     axes = fig.get_axes()
     assert [ax.get_xlabel() for ax in axes] == ["calibrated airspeed, kt", "true airspeed, kt"]

@@ -17,6 +17,8 @@ import sys
 from pathlib import Path
 
 import numpy as np
+import pyarrow as pa
+import pyarrow.parquet as pq
 import pytest
 
 import airdata
@@ -291,8 +293,6 @@ def test_recorded_column_header_errors(tmp_path: Path, header: str, words: str) 
 
 
 def test_recorded_comparison_through_parquet(tmp_path: Path) -> None:
-    pa = pytest.importorskip("pyarrow")
-    pq = pytest.importorskip("pyarrow.parquet")
     header, rows = read_csv(DEMO_REC)
     table = pa.table({h: [r[j] for r in rows] for j, h in enumerate(header)})
     src = tmp_path / "in.parquet"
@@ -338,7 +338,6 @@ def test_compare_reports_differences_in_output_units() -> None:
 
 
 def test_compare_cli_lists_units() -> None:
-    pytest.importorskip("airdata._cport64")
     r = airdata_cmd("reduce", str(DEMO), "-o", "-", "--compare", "--only", "hp")
     assert r.returncode == 0, r.stderr
     line = next(ln for ln in r.stderr.splitlines() if "largest |port - reference|:" in ln)
