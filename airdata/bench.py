@@ -712,7 +712,7 @@ def _cmd_bench(args: argparse.Namespace) -> int:
 
 def register(subparsers: Any) -> None:
     """Add the ``bench`` sub-command to the ``airdata`` parser."""
-    from .cli import CAUTION
+    from .notice import CAUTION
 
     p = subparsers.add_parser(
         "bench", help="measure speed and memory of the reference and the C port",

@@ -15,15 +15,11 @@ import numpy as np
 
 from . import __version__
 from .chain import air_data
+from .commands.quantities import quiet_broken_pipe
+from .notice import CAUTION
 from .profiles import PROFILES, get_profile
 from .status import DomainError, Status
 from .units import from_si
-
-CAUTION = (
-    "airdata is an engineering and verification aid, not certified flight software. "
-    "Flight software follows its own certification basis (for example DO-178C) and the "
-    "authority's rules; local regulations and licensed practice take precedence."
-)
 
 #: Modules that add sub-commands: each has ``register(subparsers)``, which adds its
 #: parsers and sets ``func`` (taking the parsed namespace, returning the exit code).
@@ -107,6 +103,8 @@ def main(argv: Sequence[str] | None = None) -> int:
         return 2
     try:
         return int(args.func(args))
+    except BrokenPipeError:
+        return quiet_broken_pipe()
     except (DomainError, ValueError, OSError) as exc:
         print(f"airdata: error: {exc}", file=sys.stderr)
         return 1

@@ -46,8 +46,8 @@ def _dump(obj: dict[str, Any]) -> None:
 
 
 def _cmd_limits(args: argparse.Namespace) -> int:
-    from .cli import CAUTION
     from .limits import envelope, plot_envelope
+    from .notice import CAUTION
 
     alts = None if args.alt_ft is None else to_si(np.asarray(args.alt_ft), "ft")
     env = envelope(args.aircraft_file, alts, dT=args.dT, load_factor=args.load_factor,
@@ -100,7 +100,7 @@ def _cmd_limits(args: argparse.Namespace) -> int:
 
 def _cmd_budget(args: argparse.Namespace) -> int:
     from .budget import DISPLAY_UNITS, OUTPUTS, SensorAccuracy, error_budget, plot_budget
-    from .cli import CAUTION
+    from .notice import CAUTION
 
     outputs = OUTPUTS if args.outputs is None else tuple(args.outputs.split(","))
     for o in outputs:
@@ -161,7 +161,7 @@ def _cmd_budget(args: argparse.Namespace) -> int:
 
 def register(subparsers: Any) -> None:
     """Add the ``limits`` and ``budget`` sub-commands to the ``airdata`` parser."""
-    from .cli import CAUTION
+    from .notice import CAUTION
 
     lim = subparsers.add_parser(
         "limits", help="speed envelope of an aircraft file (stall, max operating, ceiling)",

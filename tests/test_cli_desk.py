@@ -251,5 +251,55 @@ def test_table_readable_default_and_errors() -> None:
     assert lines[3].split()[0] == "0" and lines[-1].split()[0] == "50000"
     r = airdata("table", "--step", "0ft")
     assert r.returncode == 2 and "positive" in r.stderr
-    r = airdata("table", "--to", "100km", "--step", "10km")
-    assert r.returncode == 1 and "out of range" in r.stderr
+    # past the model's end (84 852 m geopotential, USSA 1976 / ICAO Doc 7488): the rows
+    # inside are printed, the rest named in a note; a range wholly outside is an error
+    r = airdata("table", "--to", "100km", "--step", "10km", "--si")
+    assert r.returncode == 0, r.stderr
+    rows = [ln.split()[0] for ln in r.stdout.splitlines()[3:] if ln[:1] in " -0123456789"]
+    assert rows[-1] == "80000.0" and len(rows) == 9, r.stdout
+    assert "2 row(s) outside the model omitted; it covers [-5000, 84852] m" in r.stdout
+    r = airdata("table", "--from", "100km", "--to", "120km", "--step", "10km")
+    assert r.returncode == 1 and "lies outside the model" in r.stderr
+    r = airdata("table", "--to", "100km", "--step", "10km", "--csv")
+    assert r.returncode == 0 and "2 row(s) outside the model omitted" in r.stderr
+    assert r.stdout.count("\n") == 1 + 9
+    r = airdata("table", "--to", "100km", "--step", "10km", "--json")
+    assert json.loads(r.stdout)["note"].startswith("note: 2 row(s) outside the model")
+
+
+def test_messages_in_the_units_the_user_wrote() -> None:
+    # -300 degC is below the model's 50 K (= -223.15 degC); 9000 kt above 10 a0 (ICAO
+    # a0 = 340.294 m/s, so 7775.38 kt): both said in the user's units, 6 digits
+    r = airdata("compute", "--ps", "250hPa", "--pt", "400hPa", "--tat", "-300degC")
+    assert r.returncode == 1
+    assert ("tat = -300 degC is invalid: valid range is [-223.15, 4726.85] degC"
+            in r.stderr), r.stderr
+    r = airdata("convert", "--cas", "9000kt", "--hp", "FL350")
+    assert r.returncode == 1
+    assert "cas = 9000 kt is out of range: valid range is [0, 7775.38] kt" in r.stderr
+    r = airdata("compute", "--ps", "250hPa", "--pt", "400hPa", "--tat", "20degC",
+                "--recovery", "1.5")
+    assert "recovery = 1.5 is out of range: valid range is [0, 1]" in r.stderr
+    assert "SI units" not in r.stderr and "000000" not in r.stderr
+
+
+def test_flight_levels_are_altitudes() -> None:
+    # FL350 = 35 000 ft pressure altitude (common practice, no source)
+    a = airdata("convert", "--cas", "280kt", "--hp", "FL350", "--json")
+    b = airdata("convert", "--cas", "280kt", "--hp", "35000ft", "--json")
+    assert a.returncode == 0 and json.loads(a.stdout) == json.loads(b.stdout)
+    r = airdata("convert", "--cas", "280kt", "--hp", "FLX")
+    assert r.returncode == 2 and "FL" in r.stderr
+
+
+def test_no_negative_zero_and_a_quiet_broken_pipe() -> None:
+    from airdata.commands.quantities import format_value
+
+    assert format_value(-0.001, "K") == "0.00" and format_value(-0.2, "ft") == "0"
+    assert format_value(-0.01, "K") == "-0.01"
+    # a reader that stops after one line: no traceback, no message, exit 141
+    proc = subprocess.run(f"{sys.executable} -m airdata table --to 80km --step 10m "
+                          "| head -n 1; exit ${PIPESTATUS[0]}", shell=True,
+                          executable="/bin/bash", capture_output=True, text=True, timeout=60)
+    assert proc.stdout.startswith("airdata table") and proc.stderr == ""
+    assert proc.returncode == 141

@@ -96,7 +96,9 @@ def run(args: argparse.Namespace) -> int:
                        None if args.setting is None else args.setting.si,
                        noise_band=noise, profile=args.profile)
     except DomainError as exc:
-        return domain_failure(COMMAND, exc)
+        return domain_failure(COMMAND, exc, {
+            "ps": args.ps, "pt": args.pt, "tat": args.tat, "setting": args.setting,
+            "recovery": args.recovery, "noise_band": args.noise_band})
     ou = output_units(args)
     status = Status(int(np.asarray(out.status)))
     rows = [(key, label, dim) for key, label, dim in OUTPUT_ROWS

@@ -137,7 +137,10 @@ def run(args: argparse.Namespace) -> int:
             "dynamic_pressure": (float(dynamic_pressure(mach, ps, profile=prof)), "pressure"),
         }
     except DomainError as exc:
-        return domain_failure(COMMAND, exc)
+        given = {"cas": args.cas, "eas": args.eas, "tas": args.tas, "mach": args.mach,
+                 "sat": args.sat, "ps": args.ps, "h": args.hp, "dT": args.isa_dev,
+                 "delta_t": args.isa_dev}
+        return domain_failure(COMMAND, exc, {k: q for k, q in given.items() if q is not None})
     ou = output_units(args)
     ou["difference"] = "K"
 

@@ -27,6 +27,7 @@ __all__ = [
     "Quantity", "parse_quantity", "quantity_type", "difference_type", "add_output_units",
     "output_units", "add_profile", "allow_negative_values", "fail", "domain_failure",
     "DIMENSION_WORDS", "DECIMALS", "format_value", "render", "si_units", "caution",
+    "domain_message", "quiet_broken_pipe",
 ]
 
 #: Human words for the dimensions of :mod:`airdata.units`.
@@ -37,6 +38,8 @@ DIMENSION_WORDS = {
 
 _NUMBER = r"[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?"
 _QUANTITY = re.compile(rf"^\s*(?P<num>{_NUMBER})\s*(?P<unit>[^\s\d.+-][^\s]*)?\s*$")
+#: A flight level written the way it is spoken, ``FL350`` (also ``FL 350``, ``fl350``).
+_FLIGHT_LEVEL = re.compile(r"^\s*[Ff][Ll]\s*(?P<num>\d+(?:\.\d*)?)\s*$")
 
 
 @dataclass(frozen=True)
@@ -89,6 +92,10 @@ def parse_quantity(text: str, dim: str, default_unit: str | None = None) -> Quan
         Not a number, a missing or unknown unit, or a unit of another dimension; the
         message lists the units of dimension ``dim``.
     """
+    fl = _FLIGHT_LEVEL.match(text) if dim == "length" else None
+    if fl is not None:  # FL350: the flight level first, in hundreds of feet
+        value = float(fl.group("num"))
+        return Quantity(float(u.to_si(value, "FL")), value, "FL")
     m = _QUANTITY.match(text)
     if m is None:
         raise ValueError(f"{text!r} is not a number with a unit (e.g. "
@@ -289,9 +296,78 @@ def fail(command: str, message: str, code: int = 1) -> int:
     return code
 
 
-def domain_failure(command: str, exc: DomainError) -> int:
-    """Report a :class:`DomainError` (values in SI units) and return exit status 1."""
-    return fail(command, f"{exc} (values in SI units: Pa, K, m, m/s)", 1)
+def quiet_broken_pipe() -> int:
+    """The reader of stdout went away (``airdata table | head``): end without a message.
+
+    stdout is pointed at the null device so that the interpreter's final flush does not
+    raise again; the exit status is 141 (128 + SIGPIPE), what a shell reports for a
+    program ended by a closed pipe.
+    """
+    import os
+
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError):  # pragma: no cover - stdout without a descriptor
+        pass
+    return 141
+
+
+def domain_failure(command: str, exc: DomainError,
+                   given: dict[str, Quantity] | None = None) -> int:
+    """Report a :class:`DomainError` and return exit status 1.
+
+    When the offending argument is one the user gave (``given`` maps the library's
+    argument names to the quantities as written), the value and the valid range are
+    shown in the user's unit, rounded to 6 significant digits; otherwise (a derived
+    quantity such as qc/ps) in SI units, rounded the same way.
+    """
+    return fail(command, domain_message(exc, given), 1)
+
+
+#: "[lo, hi] unit rest" as DomainError.valid writes a range.
+_RANGE = re.compile(rf"^(?P<open>[\[(])\s*(?P<lo>{_NUMBER}|-?inf)\s*,\s*"
+                    rf"(?P<hi>{_NUMBER}|inf)\s*(?P<close>[\])])\s*(?P<unit>[^\s(]*)\s*"
+                    rf"(?P<rest>.*)$")
+
+
+def _g6(x: float) -> str:
+    text = f"{x:.6g}"
+    return "0" if text in ("-0", "0") else text
+
+
+def domain_message(exc: DomainError, given: dict[str, Quantity] | None = None) -> str:
+    """The text of :func:`domain_failure` (see there)."""
+    kind = "invalid" if exc.status.name == "INVALID_INPUT" else "out of range"
+    where = "" if exc.index is None else (
+        f" at index {exc.index[0] if len(exc.index) == 1 else exc.index}")
+    q = (given or {}).get(exc.argument)
+    if q is not None:  # one value as written: an index into a broadcast says nothing
+        where = ""
+    m = _RANGE.match(exc.valid)
+    si_unit = m.group("unit") if m else ""
+    if m is not None and si_unit == "":  # a pure number: no unit to convert or name
+        value = _g6(q.value) if q is not None else _g6(float(exc.value))
+        valid = f"{m.group('open')}{_g6(float(m.group('lo')))}, {_g6(float(m.group('hi')))}" \
+                f"{m.group('close')}" + (f" {m.group('rest')}" if m.group("rest") else "")
+        return f"{exc.argument} = {value}{where} is {kind}: valid range is {valid}"
+    if q is not None and m is not None and si_unit in u.UNITS and q.unit in u.UNITS \
+            and u.dimension(si_unit) == u.dimension(q.unit):
+        lo, hi = (float(u.from_si(float(u.to_si(float(m.group(k)), si_unit)), q.unit))
+                  for k in ("lo", "hi"))
+        rng = f"{m.group('open')}{_g6(lo)}, {_g6(hi)}{m.group('close')} {q.unit}"
+        rest = f" {m.group('rest')}" if m.group("rest") else ""
+        return f"{exc.argument} = {_g6(q.value)} {q.unit}{where} is {kind}: valid range is " \
+               f"{rng}{rest}"
+    if m is not None:
+        valid = (f"{m.group('open')}{_g6(float(m.group('lo')))}, {_g6(float(m.group('hi')))}"
+                 f"{m.group('close')} {si_unit}".rstrip()
+                 + (f" {m.group('rest')}" if m.group("rest") else ""))
+    else:
+        valid = exc.valid
+    value = _g6(exc.value) if isinstance(exc.value, float) else str(exc.value)
+    return f"{exc.argument} = {value}{where} is {kind}: valid range is {valid} " \
+           f"(SI units: Pa, K, m, m/s)"
 
 
 # ----------------------------------------------------------------------------- display
@@ -309,9 +385,10 @@ def format_value(value: float, unit: str) -> str:
     if value != value:  # NaN
         return "-"
     d = DECIMALS.get(unit)
-    if d is None:
-        return f"{value:.5g}"
-    return f"{value:.{d}f}"
+    text = f"{value:.5g}" if d is None else f"{value:.{d}f}"
+    if text.startswith("-") and float(text) == 0.0:  # -0.00 K: a rounded-away sign
+        text = text[1:]
+    return text
 
 
 def render(rows: list[tuple[str, str, str]], title: str | None = None) -> str:
@@ -334,6 +411,6 @@ def caution() -> str:
     """``airdata.cli.CAUTION`` wrapped for a --help epilog shown as written."""
     import textwrap
 
-    from ..cli import CAUTION
+    from ..notice import CAUTION
 
     return textwrap.fill(CAUTION, 79)

@@ -111,6 +111,7 @@ from .quantities import (
     fail,
     output_units,
     quantity_type,
+    quiet_broken_pipe,
 )
 
 __all__ = ["register", "run", "OUTPUTS", "PLOT_POINTS", "Summary"]
@@ -765,11 +766,8 @@ def run(args: argparse.Namespace) -> int:
         parser.error(str(exc))
     except KeyboardInterrupt:
         return fail(COMMAND, "interrupted (an output file is not left behind)", 130)
-    except BrokenPipeError:
-        # The reader of standard output went away (e.g. "| head"): stop quietly.
-        devnull = os.open(os.devnull, os.O_WRONLY)
-        os.dup2(devnull, sys.stdout.fileno())
-        return 1
+    except BrokenPipeError:  # the reader of standard output went away (e.g. "| head")
+        return quiet_broken_pipe()
     except (HeaderError, csv.Error, UnicodeDecodeError) as exc:
         return fail(COMMAND, str(exc), 1)
     except FileNotFoundError as exc:

@@ -12,6 +12,7 @@ import csv
 import json
 import math
 import sys
+from typing import Any
 
 import numpy as np
 
@@ -27,6 +28,7 @@ from .quantities import (
     caution,
     difference_type,
     domain_failure,
+    fail,
     format_value,
     output_units,
     quantity_type,
@@ -49,7 +51,8 @@ Print the standard atmosphere over an altitude range.
 Columns: h (geopotential altitude), z (geometric altitude), T, p, rho (density),
 a (speed of sound), theta = T/T0, delta = p/p0, sigma = rho/rho0, mu (dynamic
 viscosity, Pa s), nu (kinematic viscosity, m2/s).  Altitude units: m, ft, km.
-Exit status: 0 done, 1 an altitude outside the model, 2 usage error.
+Rows beyond the ends of the model are left out, with a note that says so.
+Exit status: 0 done, 1 a range wholly outside the model, 2 usage error.
 """
 
 
@@ -93,17 +96,32 @@ def run(args: argparse.Namespace) -> int:
         parser.error(f"{count} rows: at most {MAX_ROWS}; give a larger --step")
     prof = get_profile(args.profile)
     grid = start + step * np.arange(count, dtype=np.float64)
-    try:
+    ou = output_units(args)
+    with np.errstate(invalid="ignore"):
         if args.geometric:
             z = grid
-            h = np.asarray(geopotential_altitude(z, profile=prof))
+            h = np.asarray(geopotential_altitude(z, profile=prof, strict=False))
         else:
             h = grid
-            z = np.asarray(geometric_altitude(h, profile=prof))
+            z = np.asarray(geometric_altitude(h, profile=prof, strict=False))
+    inside = np.isfinite(h) & np.isfinite(z)
+    lo, hi = _model_range(prof, args.geometric)
+    shown = ou["length"]
+    model = f"[{_alt(lo, shown)}, {_alt(hi, shown)}] {shown}"
+    if not inside.any():
+        return fail(COMMAND, f"--from {args.start} to --to {args.stop} lies outside the "
+                             f"model, which covers {model} "
+                             f"({'geometric' if args.geometric else 'geopotential'})")
+    note = None
+    if not inside.all():
+        gone = int((~inside).sum())
+        note = (f"note: {gone} row(s) outside the model omitted; it covers {model} "
+                f"({'geometric' if args.geometric else 'geopotential'} altitude)")
+        h, z = h[inside], z[inside]
+    try:
         atm = atmosphere(h, args.isa_dev.si, profile=prof)
     except DomainError as exc:
-        return domain_failure(COMMAND, exc)
-    ou = output_units(args)
+        return domain_failure(COMMAND, exc, {"delta_t": args.isa_dev, "dT": args.isa_dev})
     temp = np.asarray(atm.temperature)
     pres = np.asarray(atm.pressure)
     rho = np.asarray(atm.density)
@@ -126,6 +144,7 @@ def run(args: argparse.Namespace) -> int:
     if args.json:
         doc = {
             "command": COMMAND, "profile": prof.name, "isa_deviation_K": args.isa_dev.si,
+            "note": note,
             "altitude": "geometric" if args.geometric else "geopotential",
             "units": {name: unit for name, unit, _ in cols},
             "rows": [dict(zip([c[0] for c in cols], row, strict=True))
@@ -138,6 +157,8 @@ def run(args: argparse.Namespace) -> int:
         w = csv.writer(sys.stdout, lineterminator="\n")
         w.writerow([f"{name}[{unit}]" for name, unit, _ in cols])
         w.writerows(data.tolist())
+        if note:
+            print(note, file=sys.stderr)
         return 0
     cells = [[_cell(v, unit) for v, (_, unit, _) in zip(row, cols, strict=True)]
              for row in data.tolist()]
@@ -152,7 +173,21 @@ def run(args: argparse.Namespace) -> int:
     print("  ".join(s.rjust(w) for s, w in zip(unit_row, widths, strict=True)))
     for r in cells:
         print("  ".join(s.rjust(w) for s, w in zip(r, widths, strict=True)))
+    if note:
+        print(note)
     return 0
+
+
+def _model_range(prof: Any, geometric: bool) -> tuple[float, float]:
+    """Ends of the layer model, m, in the altitude the range is given in."""
+    lo, hi = prof.h_min, prof.h_max
+    if geometric:
+        lo, hi = (float(geometric_altitude(v, profile=prof)) for v in (lo, hi))
+    return lo, hi
+
+
+def _alt(value_m: float, unit: str) -> str:
+    return f"{float(u.from_si(value_m, unit)):.6g}"
 
 
 def _cell(value: float, unit: str) -> str:

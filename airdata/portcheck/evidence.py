@@ -32,6 +32,7 @@ from pathlib import Path
 from typing import Any
 
 from .. import __version__
+from ..notice import CAUTION
 from .verdict import LEVEL_REFERENCE, LEVEL_REQUIREMENTS, PRECISION_LABEL, FunctionVerdict, Report
 
 __all__ = ["CAUTION", "add_report_options", "environment", "report_json", "report_schema",
@@ -39,9 +40,6 @@ __all__ = ["CAUTION", "add_report_options", "environment", "report_json", "repor
            "write_outputs", "sha256_file", "equation_table", "REPORT_FORMAT"]
 
 REPORT_FORMAT = "airdata-port-report-1"
-CAUTION = ("An engineering and verification aid, not certified flight software. Flight "
-           "software follows its own certification basis (for example DO-178C) and the "
-           "authority's rules; local regulations and licensed practice take precedence.")
 _MAX = 300
 
 
