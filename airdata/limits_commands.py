@@ -13,6 +13,7 @@ from typing import Any
 
 import numpy as np
 
+from .notice import CAUTION
 from .profiles import PROFILES
 from .units import from_si, to_si
 
@@ -47,7 +48,6 @@ def _dump(obj: dict[str, Any]) -> None:
 
 def _cmd_limits(args: argparse.Namespace) -> int:
     from .limits import envelope, plot_envelope
-    from .notice import CAUTION
 
     alts = None if args.alt_ft is None else to_si(np.asarray(args.alt_ft), "ft")
     env = envelope(args.aircraft_file, alts, dT=args.dT, load_factor=args.load_factor,
@@ -100,7 +100,6 @@ def _cmd_limits(args: argparse.Namespace) -> int:
 
 def _cmd_budget(args: argparse.Namespace) -> int:
     from .budget import DISPLAY_UNITS, OUTPUTS, SensorAccuracy, error_budget, plot_budget
-    from .notice import CAUTION
 
     outputs = OUTPUTS if args.outputs is None else tuple(args.outputs.split(","))
     for o in outputs:
@@ -161,7 +160,6 @@ def _cmd_budget(args: argparse.Namespace) -> int:
 
 def register(subparsers: Any) -> None:
     """Add the ``limits`` and ``budget`` sub-commands to the ``airdata`` parser."""
-    from .notice import CAUTION
 
     lim = subparsers.add_parser(
         "limits", help="speed envelope of an aircraft file (stall, max operating, ceiling)",

@@ -6,16 +6,14 @@ message, unless AIRDATA_REQUIRE_TOOLCHAINS=1, which turns the skip into a failur
 
 from __future__ import annotations
 
-import importlib.util
 import math
 import subprocess
-import sys
 from fractions import Fraction
 from pathlib import Path
 
 import mpmath
 import pytest
-from toolchains import need
+from toolchains import load_script, need
 
 ROOT = Path(__file__).resolve().parents[1]
 C_DIR = ROOT / "bindings" / "c"
@@ -29,13 +27,7 @@ PROFILES = {"icao": [], "us1976": ["-DAIRDATA_PROFILE_US1976"]}
 
 
 def _gen():  # noqa: ANN202 - module object
-    spec = importlib.util.spec_from_file_location("gen_constants",
-                                                  C_DIR / "tools" / "gen_constants.py")
-    assert spec is not None and spec.loader is not None
-    mod = importlib.util.module_from_spec(spec)
-    sys.modules["gen_constants"] = mod
-    spec.loader.exec_module(mod)
-    return mod
+    return load_script(C_DIR / "tools" / "gen_constants.py", "gen_constants")
 
 
 def run(cmd: list[str], cwd: Path | None = None) -> subprocess.CompletedProcess[str]:

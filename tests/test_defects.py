@@ -7,28 +7,18 @@ really gone from the PATH it builds.
 
 from __future__ import annotations
 
-import importlib.util
 import shutil
 import subprocess
 import sys
 from pathlib import Path
 
 import pytest
+from toolchains import load_script
 
 ROOT = Path(__file__).resolve().parents[1]
 
 
-def _script():  # noqa: ANN202 - module object
-    spec = importlib.util.spec_from_file_location("inject_defects",
-                                                  ROOT / "tools" / "inject_defects.py")
-    assert spec is not None and spec.loader is not None
-    mod = importlib.util.module_from_spec(spec)
-    sys.modules["inject_defects"] = mod
-    spec.loader.exec_module(mod)
-    return mod
-
-
-inj = _script()
+inj = load_script(ROOT / "tools" / "inject_defects.py", "inject_defects")
 
 
 @pytest.mark.parametrize("name", [d.name for d in inj.DEFECTS])

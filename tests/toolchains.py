@@ -15,8 +15,12 @@ can never accept ``cc`` while cffi goes on to call a ``gcc`` that is not there.
 
 from __future__ import annotations
 
+import importlib.util
 import os
 import shutil
+import sys
+from pathlib import Path
+from types import ModuleType
 from typing import NoReturn
 
 import pytest
@@ -82,3 +86,14 @@ def host_compiler() -> str:
     """Fixture form of :func:`host_cc`, for ``pytest.mark.usefixtures("host_compiler")``
     on tests that compile through cffi (import it into the test module)."""
     return host_cc()
+
+
+def load_script(path: Path, name: str) -> ModuleType:
+    """Import a repository script that is not in a package (``tools/*.py``,
+    ``bindings/c/tools/*.py``) as module ``name``."""
+    spec = importlib.util.spec_from_file_location(name, path)
+    assert spec is not None and spec.loader is not None, path
+    mod = importlib.util.module_from_spec(spec)
+    sys.modules[name] = mod
+    spec.loader.exec_module(mod)
+    return mod
