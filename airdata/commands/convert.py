@@ -138,8 +138,7 @@ def run(args: argparse.Namespace) -> int:
         }
     except DomainError as exc:
         given = {"cas": args.cas, "eas": args.eas, "tas": args.tas, "mach": args.mach,
-                 "sat": args.sat, "ps": args.ps, "h": args.hp, "dT": args.isa_dev,
-                 "delta_t": args.isa_dev}
+                 "sat": args.sat, "ps": args.ps, "h": args.hp, "dT": args.isa_dev}
         return domain_failure(COMMAND, exc, {k: q for k, q in given.items() if q is not None})
     ou = output_units(args)
     ou["difference"] = "K"

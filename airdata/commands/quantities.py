@@ -336,6 +336,12 @@ def _g6(x: float) -> str:
     return "0" if text in ("-0", "0") else text
 
 
+def _range_text(m: re.Match[str], lo: float, hi: float, unit: str) -> str:
+    """``[lo, hi] unit rest`` with the brackets and the remark of the matched range."""
+    text = f"{m.group('open')}{_g6(lo)}, {_g6(hi)}{m.group('close')} {unit}".rstrip()
+    return text + (f" {m.group('rest')}" if m.group("rest") else "")
+
+
 def domain_message(exc: DomainError, given: dict[str, Quantity] | None = None) -> str:
     """The text of :func:`domain_failure` (see there)."""
     kind = "invalid" if exc.status.name == "INVALID_INPUT" else "out of range"
@@ -348,23 +354,16 @@ def domain_message(exc: DomainError, given: dict[str, Quantity] | None = None) -
     si_unit = m.group("unit") if m else ""
     if m is not None and si_unit == "":  # a pure number: no unit to convert or name
         value = _g6(q.value) if q is not None else _g6(float(exc.value))
-        valid = f"{m.group('open')}{_g6(float(m.group('lo')))}, {_g6(float(m.group('hi')))}" \
-                f"{m.group('close')}" + (f" {m.group('rest')}" if m.group("rest") else "")
+        valid = _range_text(m, float(m.group("lo")), float(m.group("hi")), "")
         return f"{exc.argument} = {value}{where} is {kind}: valid range is {valid}"
     if q is not None and m is not None and si_unit in u.UNITS and q.unit in u.UNITS \
             and u.dimension(si_unit) == u.dimension(q.unit):
         lo, hi = (float(u.from_si(float(u.to_si(float(m.group(k)), si_unit)), q.unit))
                   for k in ("lo", "hi"))
-        rng = f"{m.group('open')}{_g6(lo)}, {_g6(hi)}{m.group('close')} {q.unit}"
-        rest = f" {m.group('rest')}" if m.group("rest") else ""
         return f"{exc.argument} = {_g6(q.value)} {q.unit}{where} is {kind}: valid range is " \
-               f"{rng}{rest}"
-    if m is not None:
-        valid = (f"{m.group('open')}{_g6(float(m.group('lo')))}, {_g6(float(m.group('hi')))}"
-                 f"{m.group('close')} {si_unit}".rstrip()
-                 + (f" {m.group('rest')}" if m.group("rest") else ""))
-    else:
-        valid = exc.valid
+               f"{_range_text(m, lo, hi, q.unit)}"
+    valid = exc.valid if m is None else _range_text(
+        m, float(m.group("lo")), float(m.group("hi")), si_unit)
     value = _g6(exc.value) if isinstance(exc.value, float) else str(exc.value)
     return f"{exc.argument} = {value}{where} is {kind}: valid range is {valid} " \
            f"(SI units: Pa, K, m, m/s)"

@@ -12,13 +12,12 @@ import csv
 import json
 import math
 import sys
-from typing import Any
 
 import numpy as np
 
 from .. import units as u
 from ..atmosphere import atmosphere, geometric_altitude, geopotential_altitude
-from ..profiles import get_profile
+from ..profiles import Profile, get_profile
 from ..status import DomainError
 from .quantities import (
     Quantity,
@@ -121,7 +120,7 @@ def run(args: argparse.Namespace) -> int:
     try:
         atm = atmosphere(h, args.isa_dev.si, profile=prof)
     except DomainError as exc:
-        return domain_failure(COMMAND, exc, {"delta_t": args.isa_dev, "dT": args.isa_dev})
+        return domain_failure(COMMAND, exc, {"dT": args.isa_dev})
     temp = np.asarray(atm.temperature)
     pres = np.asarray(atm.pressure)
     rho = np.asarray(atm.density)
@@ -178,7 +177,7 @@ def run(args: argparse.Namespace) -> int:
     return 0
 
 
-def _model_range(prof: Any, geometric: bool) -> tuple[float, float]:
+def _model_range(prof: Profile, geometric: bool) -> tuple[float, float]:
     """Ends of the layer model, m, in the altitude the range is given in."""
     lo, hi = prof.h_min, prof.h_max
     if geometric:
