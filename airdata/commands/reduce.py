@@ -10,7 +10,8 @@ in square brackets after the name::
 
 Required columns: ``ps`` (static pressure), ``pt`` (total pressure), ``tat`` (total air
 temperature).  Optional: ``setting`` (altimeter setting, per row) and ``time`` (the
-abscissa of ``--plot``; any unit, not converted).  ``--col ROLE=HEADER`` picks a
+abscissa of ``--plot``: numbers in any unit, not converted; clock times ``hh:mm:ss.fff``;
+or ISO 8601 date-times; see :mod:`airdata.commands.timebase`).  ``--col ROLE=HEADER`` picks a
 differently named column, ``--unit ROLE=UNIT`` gives the unit of a column whose header
 has none.  Units: pressure Pa, hPa, mbar, kPa, inHg; temperature K, degC, degF.
 
@@ -113,6 +114,7 @@ from .quantities import (
     quantity_type,
     quiet_broken_pipe,
 )
+from .timebase import TimeAxis
 
 __all__ = ["register", "run", "OUTPUTS", "PLOT_POINTS", "Summary"]
 
@@ -155,7 +157,8 @@ unchanged plus the outputs, each column named with its unit.
 Header convention: a quantity's column names its unit in brackets, e.g.
   time[s],ps[hPa],pt[hPa],tat[degC],phase
 Needed: ps (static pressure), pt (total pressure), tat (total air temperature).
-Optional: setting (altimeter setting per row), time (x axis of --plot).
+Optional: setting (altimeter setting per row), time (x axis of --plot: numbers,
+hh:mm:ss.fff clock times or ISO 8601 date-times).
 Pressure units: Pa, hPa, mbar, kPa, inHg.  Temperature units: K, degC, degF.
 Other columns pass through unchanged.
 
@@ -194,6 +197,8 @@ class Summary:
         Wall time of the run.
     columns : list of str
         The output header.
+    plot : dict or None
+        What ``--plot`` drew (rows shown, rows read, stride, rejected rows, time shape).
     """
 
     rows: int = 0
@@ -204,6 +209,7 @@ class Summary:
     recorded: RecordedComparison | None = None
     notes: list[str] = field(default_factory=list)
     first_note: str = ""
+    plot: dict[str, Any] | None = None
 
     @property
     def bad(self) -> int:
@@ -474,13 +480,15 @@ def _column(rows: list[list[str]], index: int, ragged: bool) -> list[str]:
 
 def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace,
                  comparison: Comparison | None = None, first_row: int = 1,
-                 recorded: RecordedComparison | None = None) -> _Chunk:
+                 recorded: RecordedComparison | None = None,
+                 timeaxis: TimeAxis | None = None) -> _Chunk:
     """Reduce one chunk of rows (lists of field strings).
 
     ``comparison`` (with ``--compare``) collects the disagreements of the reference and
     the C port; ``first_row`` is the data row number (from 1) of the chunk's first row;
     ``recorded`` collects the differences of the recorded outputs (its difference
-    columns follow the outputs in the chunk's values).
+    columns follow the outputs in the chunk's values); ``timeaxis`` reads the time
+    column (numbers, clock times or ISO date-times) and counts the unreadable ones.
     """
     n = len(rows)
     width = plan.width
@@ -493,10 +501,11 @@ def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace,
     time_values = None
     for role, col in plan.roles.items():
         fields = _column(rows, col.index, ragged)
-        values, bad = parse_numbers(fields)
         if role == "time":
-            time_values = values
+            time_values = (timeaxis.parse(fields, first_row) if timeaxis is not None
+                           else parse_numbers(fields)[0])
             continue
+        values, bad = parse_numbers(fields)
         unreadable |= bad
         for i in np.flatnonzero(bad):
             text = fields[i]
@@ -786,6 +795,8 @@ def run(args: argparse.Namespace) -> int:
             doc["compare"] = cmp.as_dict()
         if summary.recorded is not None:
             doc["recorded"] = summary.recorded.as_dict()
+        if summary.plot is not None:
+            doc["plot_content"] = summary.plot
         json.dump(doc, sys.stdout, indent=2)
         sys.stdout.write("\n")
     if not args.quiet:
@@ -909,9 +920,10 @@ def _run(args: argparse.Namespace) -> Summary:
             summary.recorded = RecordedComparison(plan.recorded, args.engine,
                                                   "time" in plan.roles, plan.phase is not None)
         collector = None
+        timeaxis = TimeAxis() if "time" in plan.roles else None
         if args.plot:
             from .plotting import Collector
-            collector = Collector(PLOT_POINTS, plan, output_units(args))
+            collector = Collector(PLOT_POINTS, plan, output_units(args), timeaxis)
         progress = Progress(reader.size)
         out_format = file_format(args.output)[0]
         sink: _CsvSink | _ArrowSink
@@ -929,10 +941,11 @@ def _run(args: argparse.Namespace) -> Summary:
             for rows in reader.chunks():
                 if dialect.decimal == ",":
                     ch = reduce_chunk(_decimal_points(rows, plan), plan, args,
-                                      summary.comparison, summary.rows + 1, summary.recorded)
+                                      summary.comparison, summary.rows + 1, summary.recorded,
+                                      timeaxis)
                 else:
                     ch = reduce_chunk(rows, plan, args, summary.comparison, summary.rows + 1,
-                                      summary.recorded)
+                                      summary.recorded, timeaxis)
                 values = ch.values if out_format == "csv" and args.digits is not None \
                     else round_outputs(ch.values, units, args.digits, args.exact)
                 names = [_STATUS_NAMES[s] for s in ch.status.tolist()]
@@ -956,10 +969,17 @@ def _run(args: argparse.Namespace) -> Summary:
         sink.finish()
         if reader.comments:
             summary.notes.append(f"{reader.comments} comment line(s) starting with # skipped")
+        if timeaxis is not None and timeaxis.unreadable:
+            row, text = timeaxis.first_unreadable or (0, "")
+            summary.notes.append(
+                f"time column {plan.roles['time'].header!r}: {timeaxis.unreadable} row(s) "
+                f"without a readable {timeaxis.kind or 'time'} value (first: data row {row}, "
+                f"{text!r})" + ("; they are not in the plot" if collector is not None else ""))
         if collector is not None:
             from .plotting import draw
-            draw(collector, args.plot, title=f"airdata reduce {os.path.basename(args.input)}",
-                 profile=args.profile)
+            summary.plot = draw(collector, args.plot,
+                                title=f"airdata reduce {os.path.basename(args.input)}",
+                                profile=args.profile)
     finally:
         reader.close()
     summary.seconds = time.monotonic() - start
