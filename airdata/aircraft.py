@@ -19,7 +19,7 @@ A TOML document (read with the standard library's ``tomllib``, Python 3.11 or la
 
     [limits]
     cas_kt = 320.0                      # maximum operating calibrated airspeed, kt
-    mach = 0.80                         # maximum operating Mach number, subsonic
+    mach = 0.80                         # maximum operating Mach number
     ceiling_ft = 39000.0                # maximum altitude, as a pressure altitude, ft
 
 Units are part of the key names and are fixed; every number is converted to SI on
@@ -29,8 +29,9 @@ keys and tables are refused rather than ignored, so a misspelt key cannot go unn
 
 Valid values (chosen by this project to catch unit slips, not physical limits):
 masses in (0, 1e6] kg with min_kg <= max_kg; wing area in (0, 2000] m2; cl_max in (0, 10];
-cas_kt in (0, 1000] kt; mach in (0, 1) (a subsonic limit, so that the crossover
-altitude exists); ceiling_ft in [0, 100000] ft, within the standard atmosphere.
+cas_kt in (0, 1000] kt; mach in (0, 10] (a limit above Mach 1 uses the supersonic pitot
+relation, NACA Report 1135 eq. 100); ceiling_ft in [0, 100000] ft, within the standard
+atmosphere.
 """
 
 from __future__ import annotations
@@ -60,7 +61,7 @@ _TABLES: dict[str, dict[str, tuple[float, bool, float, str]]] = {
     },
     "limits": {
         "cas_kt": (0.0, False, 1000.0, "(0, 1000] kt"),
-        "mach": (0.0, False, math.nextafter(1.0, 0.0), "(0, 1) (subsonic)"),
+        "mach": (0.0, False, 10.0, "(0, 10]"),
         "ceiling_ft": (0.0, True, 100000.0, "[0, 100000] ft"),
     },
 }
@@ -88,7 +89,7 @@ class Aircraft:
     cas_limit : float
         Maximum operating calibrated airspeed, m/s.
     mach_limit : float
-        Maximum operating Mach number, in (0, 1).
+        Maximum operating Mach number, in (0, 10].
     ceiling : float
         Maximum altitude as a (geopotential) pressure altitude, m.
     notes : str

@@ -36,6 +36,7 @@ equivalent airspeed).
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
@@ -410,8 +411,13 @@ def crossover_altitude(
     sonic = args["mach_limit"] >= 1.0
     args.flag(sonic, Status.OUT_OF_RANGE, "mach_limit", args["mach_limit"],
               "(0, 1) (subsonic crossover)")
+    return args.finish(_crossover(args, np.where(sonic, 0.5, args["mach_limit"]), prof))
+
+
+def _crossover(args: Inputs, m: F64, prof: Profile) -> F64:
+    """LIM-3 on checked inputs for any Mach limit ``m`` in (0, 10] (PIT-3 is supersonic
+    above Mach 1, NACA 1135 eq. 100); flags a crossover pressure outside the model."""
     qc = _cas_limit_qc(args, prof)
-    m = np.where(sonic, 0.5, args["mach_limit"])
     m0 = np.where(args["cas_limit"] / prof.a0 > dom.MACH_MAX, 0.0, args["cas_limit"] / prof.a0)
     tiny = (m0 < TINY_MACH) & (m < TINY_MACH)
     with np.errstate(divide="ignore", over="ignore"):  # ps = inf (tiny M): refused below
@@ -421,7 +427,41 @@ def crossover_altitude(
     out = (ps < prange.lo) | (ps > prange.hi)
     args.flag(out, Status.OUT_OF_RANGE, "crossover pressure", ps, prange.describe())
     ps = np.where(out, prof.p0, ps)
-    return args.finish(altitude_of_pressure(ps, layer_table(prof)))
+    return altitude_of_pressure(ps, layer_table(prof))
+
+
+def _envelope_crossover(cas_limit: float, mach_limit: float, prof: Profile) -> float:
+    """Crossover altitude of an aircraft's limits, m; NaN where none lies in the model.
+
+    Unlike :func:`crossover_altitude` (a firmware function whose valid range, like the
+    vectors', is a subsonic Mach limit), the envelope of a supersonic aircraft needs the
+    crossover of a Mach limit up to 10: the same equation LIM-3 with the supersonic
+    pitot relation.  Limits that do not cross within [-5000, 84852] m give NaN (one
+    limit governs at every altitude of the model).
+
+    Parameters
+    ----------
+    cas_limit : float
+        Calibrated airspeed limit, m/s, in (0, 10 a0].
+    mach_limit : float
+        Mach limit, in (0, 10].
+    prof : Profile
+        Constants profile.
+
+    Returns
+    -------
+    float
+        Geopotential pressure altitude, m, or NaN.
+
+    Raises
+    ------
+    DomainError
+        ``cas_limit`` or ``mach_limit`` bad or out of range.
+    """
+    Inputs(True, cas_limit=(cas_limit, CAS_LIMIT), mach_limit=(mach_limit, MACH_LIMIT))
+    lenient = Inputs(False, cas_limit=(float(cas_limit), CAS_LIMIT),
+                     mach_limit=(float(mach_limit), MACH_LIMIT))  # checked just above
+    return float(lenient.finish(_crossover(lenient, lenient["mach_limit"], prof)))
 
 
 def _limit_args(strict: bool, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike,
@@ -649,7 +689,9 @@ class Envelope:
     above_ceiling : ndarray of bool
         True where the row lies above the maximum altitude.
     crossover_altitude : float
-        Pressure altitude where the CAS and Mach limits coincide, m.
+        Pressure altitude where the CAS and Mach limits coincide, m (the supersonic
+        pitot relation for a Mach limit above 1); NaN when they do not meet within the
+        standard atmosphere [-5000, 84852] m.
     ceiling : float
         Maximum altitude (pressure altitude), m.
     profile : str
@@ -672,11 +714,13 @@ class Envelope:
     profile: str
 
     def as_dict(self) -> dict[str, object]:
-        """JSON-ready form, SI units."""
+        """JSON-ready form, SI units (a crossover outside the model is null)."""
         return {
             "aircraft": self.aircraft.as_dict(), "profile": self.profile,
             "dT_K": self.dT, "load_factor": self.load_factor,
-            "crossover_altitude_m": self.crossover_altitude, "ceiling_m": self.ceiling,
+            "crossover_altitude_m": (self.crossover_altitude
+                                     if math.isfinite(self.crossover_altitude) else None),
+            "ceiling_m": self.ceiling,
             "altitude_m": self.altitude.tolist(), "pressure_Pa": self.pressure.tolist(),
             "sat_K": self.sat.tolist(),
             "stall_light": self.stall_light.as_lists(),
@@ -769,7 +813,7 @@ def envelope(
                                         profile=prof))
     qc_cas = prof.p0 * ratio_from_mach(np.array([aircraft.cas_limit / prof.a0]))[0]
     qc_mach = ps * ratio_from_mach(np.full_like(ps, aircraft.mach_limit))
-    hx = float(crossover_altitude(aircraft.cas_limit, aircraft.mach_limit, profile=prof))
+    hx = _envelope_crossover(aircraft.cas_limit, aircraft.mach_limit, prof)
     mo = SpeedSet(cas=vmo, eas=prof.a0 * mmo * root, tas=mmo * a, mach=mmo)
     return Envelope(
         aircraft=aircraft, altitude=h, pressure=ps, sat=sat, dT=float(dT),
@@ -826,8 +870,9 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
         ax.plot(top, hft, color="tab:blue", lw=1.8, label="maximum operating speed")
         ax.axhline(env.ceiling / ft, color="tab:red", lw=1.0, ls="-.",
                    label="maximum altitude")
-        ax.axhline(env.crossover_altitude / ft, color="tab:blue", lw=0.8, ls=":",
-                   label="CAS/Mach crossover")
+        if np.isfinite(env.crossover_altitude):
+            ax.axhline(env.crossover_altitude / ft, color="tab:blue", lw=0.8, ls=":",
+                       label="CAS/Mach crossover")
         ax.set_xlabel(f"{title}, kt")
         ax.set_title(f"{key.upper()} limits")
         ax.grid(True, lw=0.4, color="0.8")

@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import argparse
 import json
+import math
 import sys
 from typing import Any
 
@@ -64,17 +65,24 @@ def _cmd_limits(args: argparse.Namespace) -> int:
           f"load factor {env.load_factor:g}")
     print(f"  mass {ac.mass_min:,.0f} .. {ac.mass_max:,.0f} kg (weight {wl:,.0f} .. "
           f"{wh:,.0f} N), wing area {ac.wing_area:g} m2, CLmax {ac.cl_max:g}")
+    hx = env.crossover_altitude
+    cross = (f"crossover at {from_si(hx, 'ft'):,.0f} ft" if math.isfinite(hx) else
+             "no crossover inside the standard atmosphere (the "
+             + ("Mach" if env.mach_governs[0] else "CAS") + " limit governs throughout)")
     print(f"  CAS limit {from_si(ac.cas_limit, 'kt'):.1f} kt, Mach limit {ac.mach_limit:.3f}, "
-          f"crossover at {from_si(env.crossover_altitude, 'ft'):,.0f} ft, "
+          f"{cross}, "
           f"maximum altitude {from_si(env.ceiling, 'ft'):,.0f} ft (pressure altitude)")
     print()
     groups = (("stall, heaviest", env.stall_heavy), ("stall, lightest", env.stall_light),
               ("maximum operating", env.max_operating))
     head1 = f"{'Hp':>7} {'ps':>7} {'SAT':>6} "
     head2 = f"{'ft':>7} {'hPa':>7} {'degC':>6} "
+    # speeds take 5 characters, 6 when a supersonic aircraft's TAS passes 999.9 kt
+    w = max(5, *(len(f"{float(np.nanmax(s.tas)) / _KT:.1f}") for _, s in groups
+                 if np.isfinite(s.tas).any()))
     for title, _ in groups:
-        head1 += f"| {title:<25}"
-        head2 += f"| {'CAS':>5} {'EAS':>5} {'TAS':>5} {'Mach':>6} "
+        head1 += f"| {title:<{3 * w + 10}}"
+        head2 += f"| {'CAS':>{w}} {'EAS':>{w}} {'TAS':>{w}} {'Mach':>6} "
     head1 += "| by"
     head2 += "|"
     print(head1)
@@ -83,8 +91,8 @@ def _cmd_limits(args: argparse.Namespace) -> int:
         row = (f"{from_si(env.altitude[i], 'ft'):7.0f} {env.pressure[i] / 100.0:7.1f} "
                f"{from_si(env.sat[i], 'degC'):6.1f} ")
         for _, s in groups:
-            row += (f"| {s.cas[i] / _KT:5.1f} {s.eas[i] / _KT:5.1f} {s.tas[i] / _KT:5.1f} "
-                    f"{s.mach[i]:6.3f} ")
+            row += (f"| {s.cas[i] / _KT:{w}.1f} {s.eas[i] / _KT:{w}.1f} "
+                    f"{s.tas[i] / _KT:{w}.1f} {s.mach[i]:6.3f} ")
         row += "| " + ("Mach" if env.mach_governs[i] else "CAS")
         if env.above_ceiling[i]:
             row += " (above maximum altitude)"

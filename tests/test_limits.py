@@ -10,6 +10,7 @@ as implemented by the ``fluids`` package is a second, independent reference.
 
 from __future__ import annotations
 
+import dataclasses
 import math
 from pathlib import Path
 
@@ -19,6 +20,7 @@ import numpy as np
 import pytest
 
 from airdata import DomainError, Status, eas_from_mach, pressure_at_altitude
+from airdata.aircraft import load_aircraft
 from airdata.limits import (
     ceiling_margin,
     crossover_altitude,
@@ -306,6 +308,44 @@ def test_envelope_demo_aircraft_consistent_with_kernels() -> None:
     for s in (env.stall_heavy, env.max_operating):
         np.testing.assert_allclose(s.tas, s.eas * np.sqrt(rho0 / rho), rtol=1e-13)
     assert not env.above_ceiling.any()
+
+
+SUPERSONIC = DEMO.with_name("demo_aircraft_supersonic.toml")
+
+
+def test_envelope_of_a_supersonic_mach_limit() -> None:
+    # A Mach limit of 1.8: the crossover by NACA 1135 eq. 100 (the supersonic branch of
+    # mp_f) in mpmath; below it the CAS limit governs exactly, above it the Mach limit;
+    # EAS = M a0 sqrt(ps/p0) and the supersonic pitot relation give the CAS of Mach 1.8.
+    env = envelope(SUPERSONIC)
+    ac = env.aircraft
+    assert ac.mach_limit == 1.8
+    ref = mp_crossover(mp.mpf(ac.cas_limit), mp.mpf(ac.mach_limit))
+    assert env.crossover_altitude == pytest.approx(float(ref), abs=1e-8)
+    below = env.altitude < env.crossover_altitude
+    assert below.any() and (~below).any()
+    assert np.all(env.max_operating.cas[below] == ac.cas_limit)
+    assert np.all(env.max_operating.mach[~below] == ac.mach_limit)
+    assert np.array_equal(env.mach_governs, ~below)
+    for h, cas in zip(env.altitude[~below], env.max_operating.cas[~below], strict=True):
+        ps = mp_pressure(mp.mpf(float(h)))  # CAS of M 1.8: qc = ps f(1.8) = p0 f(cas/a0)
+        want = A0 * mp_finv(ps * mp_f(mp.mpf("1.8")) / P0)
+        assert float(cas) == pytest.approx(float(want), rel=1e-12)
+
+
+def test_envelope_limits_that_never_cross_in_the_model() -> None:
+    # CAS limit 900 kt (Mach 1.36 at sea level) and a Mach limit of 1.05: the crossover
+    # pressure lies below -5000 m, so the Mach limit governs at every altitude.
+    ac = load_aircraft(SUPERSONIC)
+    fast = dataclasses.replace(ac, cas_limit=900.0 * float(KT), mach_limit=1.05)
+    ps_cross = P0 * mp_f(mp.mpf(fast.cas_limit) / A0) / mp_f(mp.mpf("1.05"))
+    assert ps_cross > 177687  # beyond the pressure range of the model (-5000 m)
+    env = envelope(fast)
+    assert math.isnan(env.crossover_altitude)
+    assert env.mach_governs.all() and np.all(env.max_operating.mach == 1.05)
+    # the public firmware function keeps its subsonic valid range (like the vectors)
+    _raises(crossover_altitude, fast.cas_limit, 1.05, status=Status.OUT_OF_RANGE,
+            arg="mach_limit")
 
 
 def test_envelope_off_standard_day_changes_only_tas() -> None:

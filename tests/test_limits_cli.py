@@ -30,6 +30,29 @@ def test_limits_table_text() -> None:
     assert rows[0].rstrip().endswith("CAS") and rows[-1].rstrip().endswith("Mach")
 
 
+def test_limits_table_of_a_supersonic_aircraft(tmp_path: Path) -> None:
+    src = DEMO.with_name("demo_aircraft_supersonic.toml")
+    env = envelope(src)
+    res = run("limits", str(src))
+    assert res.returncode == 0, res.stderr
+    assert f"Mach limit 1.800, crossover at {env.crossover_altitude / 0.3048:,.0f} ft" \
+        in res.stdout
+    rows = [ln.split("|") for ln in res.stdout.splitlines()
+            if ln.strip()[:1].isdigit() and "|" in ln]
+    tas = [float(r[3].split()[2]) for r in rows]  # maximum operating TAS, kt
+    assert max(tas) > 1000.0  # the wider column keeps every number whole
+    np_tas = env.max_operating.tas / (1852.0 / 3600.0)
+    assert tas == [round(float(v), 1) for v in np_tas]
+    # limits that do not meet inside the model: said in words, not "nan ft"
+    fast = tmp_path / "fast.toml"
+    fast.write_text(src.read_text().replace("cas_kt = 750.0", "cas_kt = 900.0")
+                    .replace("mach = 1.8", "mach = 1.05"))
+    res = run("limits", str(fast))
+    assert res.returncode == 0, res.stderr
+    assert ("no crossover inside the standard atmosphere (the Mach limit governs "
+            "throughout)") in res.stdout and "nan" not in res.stdout
+
+
 def test_limits_json_matches_library() -> None:
     res = run("limits", str(DEMO), "--json", "--alt-ft", "0,20000,35000", "--dT", "10")
     assert res.returncode == 0, res.stderr
