@@ -52,8 +52,8 @@ from .profiles import GAMMA, Profile, get_profile
 from .status import DomainError, Status
 
 __all__ = [
-    "OUTPUTS", "DISPLAY_UNITS", "Sensitivities", "sensitivities", "SensorAccuracy",
-    "ErrorBudget", "error_budget", "plot_budget",
+    "OUTPUTS", "DISPLAY_UNITS", "ACCURACY_LIMITS", "Sensitivities", "sensitivities",
+    "SensorAccuracy", "ErrorBudget", "error_budget", "plot_budget",
 ]
 
 F64 = NDArray[np.float64]
@@ -71,8 +71,15 @@ _TITLES = {"pressure_altitude": "pressure altitude", "cas": "CAS", "mach": "Mach
 _QC = Domain(0.0, 1.0e8, "Pa", "positive", 1000.0)
 _SPEED = Domain(0.0, 4000.0, "m/s", "positive", 100.0)
 #: Sensor bias (either sign) and noise standard deviation; Pa or K.
-_BIAS = Domain(-1.0e4, 1.0e4, "Pa or K", "any", 0.0)
-_NOISE = Domain(0.0, 1.0e4, "Pa or K", "nonnegative", 0.0)
+#: Valid ranges of the sensor accuracies: fixed parts in Pa or K; parts proportional to
+#: the reading as fractions (0.0002 is 0.02 % of reading; a tenth of the reading is far
+#: beyond any air-data sensor and catches a percent slip).
+ACCURACY_LIMITS = {"bias": (-1.0e4, 1.0e4), "noise": (0.0, 1.0e4),
+                   "bias_rel": (-0.1, 0.1), "noise_rel": (0.0, 0.1)}
+_BIAS = Domain(*ACCURACY_LIMITS["bias"], "Pa or K", "any", 0.0)
+_NOISE = Domain(*ACCURACY_LIMITS["noise"], "Pa or K", "nonnegative", 0.0)
+_BIAS_REL = Domain(*ACCURACY_LIMITS["bias_rel"], "of reading", "any", 0.0)
+_NOISE_REL = Domain(*ACCURACY_LIMITS["noise_rel"], "of reading", "nonnegative", 0.0)
 
 
 def ratio_slope(m: F64) -> F64:
@@ -229,6 +236,12 @@ def sensitivities(
 class SensorAccuracy:
     """Accuracy of the three air-data sensors: a fixed bias and a random noise each.
 
+    Each pressure sensor's bias and noise may also have a part proportional to its
+    reading (the static pressure, and the impact or total pressure of ``pitot``), as
+    data sheets give "0.01 % of reading"; the error at a grid point is the absolute
+    part plus the fraction times the true reading there.  A percentage of full scale is
+    a fixed amount: give it as the absolute part.
+
     Attributes
     ----------
     ps_bias, ps_noise : float
@@ -238,8 +251,11 @@ class SensorAccuracy:
         :func:`error_budget`): bias and noise standard deviation, Pa.
     tat_bias, tat_noise : float
         Total-air-temperature probe: bias and noise standard deviation, K.
+    ps_bias_rel, ps_noise_rel, pitot_bias_rel, pitot_noise_rel : float
+        Parts proportional to the reading, as fractions of it (0.0002 = 0.02 %).
 
-    Biases lie in [-1e4, 1e4], noises in [0, 1e4] (Pa or K).
+    Biases lie in [-1e4, 1e4], noises in [0, 1e4] (Pa or K); the fractions of reading
+    in [-0.1, 0.1] (biases) and [0, 0.1] (noises).
     """
 
     ps_bias: float = 0.0
@@ -248,28 +264,89 @@ class SensorAccuracy:
     pitot_noise: float = 0.0
     tat_bias: float = 0.0
     tat_noise: float = 0.0
+    ps_bias_rel: float = 0.0
+    ps_noise_rel: float = 0.0
+    pitot_bias_rel: float = 0.0
+    pitot_noise_rel: float = 0.0
 
     def __post_init__(self) -> None:
         for f in fields(self):
             v = getattr(self, f.name)
-            d = _NOISE if f.name.endswith("noise") else _BIAS
+            rel = f.name.endswith("_rel")
+            noise = f.name.removesuffix("_rel").endswith("noise")
+            d = (_NOISE_REL if noise else _BIAS_REL) if rel else (_NOISE if noise else _BIAS)
             st = d.classify(np.atleast_1d(np.float64(v)))[0]
             if st != Status.OK:
                 raise DomainError(f.name, float(v), None, d.describe(), Status(int(st)))
 
     @property
     def bias(self) -> F64:
-        """(ps, pitot, tat) biases."""
+        """(ps, pitot, tat) absolute biases."""
         return np.array([self.ps_bias, self.pitot_bias, self.tat_bias])
 
     @property
     def noise(self) -> F64:
-        """(ps, pitot, tat) noise standard deviations."""
+        """(ps, pitot, tat) absolute noise standard deviations."""
         return np.array([self.ps_noise, self.pitot_noise, self.tat_noise])
+
+    @property
+    def relative(self) -> bool:
+        """True when some part is proportional to the reading."""
+        return any((self.ps_bias_rel, self.ps_noise_rel, self.pitot_bias_rel,
+                    self.pitot_noise_rel))
+
+    def at(self, ps: F64, pitot_reading: F64) -> tuple[F64, F64]:
+        """Bias and noise of (ps, pitot, tat) at each point, shape ``ps.shape + (3,)``.
+
+        Parameters
+        ----------
+        ps : ndarray
+            True static pressure, Pa.
+        pitot_reading : ndarray
+            True reading of the second pressure sensor (impact or total pressure), Pa.
+        """
+        b = np.stack(np.broadcast_arrays(self.ps_bias + self.ps_bias_rel * ps,
+                                         self.pitot_bias + self.pitot_bias_rel * pitot_reading,
+                                         np.full(np.shape(ps), self.tat_bias)), axis=-1)
+        s = np.stack(np.broadcast_arrays(self.ps_noise + self.ps_noise_rel * ps,
+                                         self.pitot_noise + self.pitot_noise_rel * pitot_reading,
+                                         np.full(np.shape(ps), self.tat_noise)), axis=-1)
+        return b, s
 
     def as_dict(self) -> dict[str, float]:
         """Every field, JSON-ready."""
         return {f.name: float(getattr(self, f.name)) for f in fields(self)}
+
+    def describe(self, pressure_unit: str = "Pa") -> str:
+        """The accuracies in words, pressures in ``pressure_unit`` (e.g. for a chart).
+
+        Parameters
+        ----------
+        pressure_unit : str
+            Unit of the absolute pressure parts (a pressure unit of :mod:`airdata.units`).
+
+        Returns
+        -------
+        str
+            E.g. ``"static 0 / 0.5 hPa + 0.01 % rdg, pitot 0 / 0.3 hPa, TAT 0 / 0.5 K"``
+            (bias / sd for each sensor).
+        """
+        from .units import from_si
+
+        def part(absolute: float, rel: float, unit: str, convert: bool = True) -> str:
+            v = float(from_si(absolute, unit)) if convert else absolute
+            text = f"{v:.6g} {unit}"
+            if rel:
+                text += f" {'+' if rel > 0 else '-'} {abs(rel) * 100.0:.6g} % rdg"
+            return text
+
+        pu = pressure_unit
+        return (f"static {part(self.ps_bias, self.ps_bias_rel, pu)} / "
+                f"{part(self.ps_noise, self.ps_noise_rel, pu)}, "
+                f"pitot {part(self.pitot_bias, self.pitot_bias_rel, pu)} / "
+                f"{part(self.pitot_noise, self.pitot_noise_rel, pu)}, "
+                f"TAT {part(self.tat_bias, 0.0, 'K', False)} / "
+                f"{part(self.tat_noise, 0.0, 'K', False)}")
 
 
 @dataclass(frozen=True)
@@ -447,10 +524,13 @@ def error_budget(
 
     sens = sensitivities(ps, qc, tat, recovery, pitot=pitot, profile=prof)
     jac = sens.jacobian
-    b = accuracy.bias
-    s = accuracy.noise
-    lin_shift = jac @ b
-    lin_sd = np.sqrt((jac * jac) @ (s * s))
+    if accuracy.relative:  # a different bias and noise at each grid point
+        b, s = accuracy.at(ps, qc if pitot == "qc" else ps + qc)
+        lin_shift = np.einsum("...oj,...j->...o", jac, b)
+        lin_sd = np.sqrt(np.einsum("...oj,...j->...o", jac * jac, s * s))
+    else:
+        lin_shift = jac @ accuracy.bias
+        lin_sd = np.sqrt((jac * jac) @ (accuracy.noise ** 2))
     truth = _truth_outputs(air_data(ps, ps + qc, tat, recovery, profile=prof))
 
     if method == "linear":
@@ -483,6 +563,7 @@ def _monte_carlo(
 ) -> tuple[dict[str, F64], dict[str, F64], dict[str, F64], dict[str, F64]]:
     """Sample the full chain; statistics merged chunk by chunk (Chan et al. 1979)."""
     rng = np.random.default_rng(seed)
+    b, s = acc.at(ps, qc if pitot == "qc" else ps + qc)
     cells = ps.size
     chunk = max(1, min(samples, 400_000 // cells))
     n = np.zeros(ps.shape)
@@ -492,9 +573,9 @@ def _monte_carlo(
     while done < samples:
         c = min(chunk, samples - done)
         z = rng.standard_normal((c, 3) + ps.shape)
-        e_ps = acc.ps_bias + acc.ps_noise * z[:, 0]
-        e_pi = acc.pitot_bias + acc.pitot_noise * z[:, 1]
-        e_t = acc.tat_bias + acc.tat_noise * z[:, 2]
+        e_ps = b[..., 0] + s[..., 0] * z[:, 0]
+        e_pi = b[..., 1] + s[..., 1] * z[:, 1]
+        e_t = b[..., 2] + s[..., 2] * z[:, 2]
         ps_m = ps + e_ps
         pt_m = ps_m + (qc + e_pi) if pitot == "qc" else (ps + qc) + e_pi
         out = air_data(ps_m, pt_m, tat + e_t, recovery, noise_band=0.0, profile=prof,
@@ -522,7 +603,7 @@ def _monte_carlo(
 
 def plot_budget(
     budget: ErrorBudget, outputs: tuple[str, ...] | None = None, *, quantity: str = "rms",
-    path: str | Path | None = None,
+    path: str | Path | None = None, pressure_unit: str = "Pa",
 ) -> Any:
     """Maps of an error budget: one panel per output, pressure altitude against CAS.
 
@@ -536,6 +617,9 @@ def plot_budget(
         What to map; default the rms error.
     path : str or Path, optional
         Write the chart there (format from the suffix).
+    pressure_unit : str, optional
+        Unit in which the title states the pressure sensors' accuracies (default Pa;
+        ``airdata budget`` passes the unit they were given in).
 
     Returns
     -------
@@ -580,11 +664,9 @@ def plot_budget(
         ax.set_ylabel("pressure altitude, ft")
     for ax in list(axes.flat)[len(outputs):]:
         ax.set_visible(False)
-    a = budget.accuracy
     how = "linear" if budget.method == "linear" else f"Monte Carlo, {budget.samples} samples"
-    fig.suptitle(f"Error budget ({how}); sensor bias / sd: static {a.ps_bias:g} / "
-                 f"{a.ps_noise:g} Pa, {budget.pitot} {a.pitot_bias:g} / {a.pitot_noise:g} Pa, "
-                 f"TAT {a.tat_bias:g} / {a.tat_noise:g} K", fontsize=10)
+    sensors = budget.accuracy.describe(pressure_unit).replace("pitot", budget.pitot, 1)
+    fig.suptitle(f"Error budget ({how}); sensor bias / sd: {sensors}", fontsize=10)
     if path is not None:
         fig.savefig(path, dpi=120)
     return fig

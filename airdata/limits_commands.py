@@ -14,8 +14,11 @@ from typing import Any
 
 import numpy as np
 
+from .commands.accuracy import SensorTerm, parse_accuracy
+from .commands.quantities import quantity_type
 from .notice import CAUTION
 from .profiles import PROFILES
+from .status import DomainError
 from .units import from_si, to_si
 
 __all__ = ["register"]
@@ -105,25 +108,61 @@ def _cmd_limits(args: argparse.Namespace) -> int:
 
 # ------------------------------------------------------------------------------ budget
 
+def _sensor_terms(args: argparse.Namespace) -> dict[str, SensorTerm]:
+    """Every sensor accuracy option read (pressures in any unit, % of reading or FS)."""
+    out = {}
+    for key in ("ps", "pitot", "tat"):
+        fs = getattr(args, f"{key}_full_scale", None)
+        for what in ("bias", "noise"):
+            text = getattr(args, f"{key}_{what}")
+            out[f"{key}_{what}"] = parse_accuracy(
+                text, f"--{key}-{what}", "temperature" if key == "tat" else "pressure",
+                None if fs is None else fs.si, f"--{key}-full-scale", noise=what == "noise")
+    return out
+
 
 def _cmd_budget(args: argparse.Namespace) -> int:
-    from .budget import DISPLAY_UNITS, OUTPUTS, SensorAccuracy, error_budget, plot_budget
+    from .budget import (
+        ACCURACY_LIMITS,
+        DISPLAY_UNITS,
+        OUTPUTS,
+        SensorAccuracy,
+        error_budget,
+        plot_budget,
+    )
 
     outputs = OUTPUTS if args.outputs is None else tuple(args.outputs.split(","))
     for o in outputs:
         if o not in OUTPUTS:
             raise ValueError(f"unknown output {o!r}: choose from {', '.join(OUTPUTS)}")
-    acc = SensorAccuracy(
-        ps_bias=args.ps_bias * 100.0, ps_noise=args.ps_noise * 100.0,
-        pitot_bias=args.pitot_bias * 100.0, pitot_noise=args.pitot_noise * 100.0,
-        tat_bias=args.tat_bias, tat_noise=args.tat_noise)
+    terms = _sensor_terms(args)
+    try:
+        acc = SensorAccuracy(
+            **{k: t.absolute for k, t in terms.items()},
+            **{f"{k}_rel": t.of_reading for k, t in terms.items() if not k.startswith("tat")})
+    except DomainError as exc:  # name the option and the value as the user wrote them
+        key = exc.argument.removesuffix("_rel")
+        kind = key.split("_")[1] + ("_rel" if exc.argument.endswith("_rel") else "")
+        lo, hi = ACCURACY_LIMITS[kind]
+        if kind.endswith("_rel"):
+            limit = f"the part in % of reading must lie in [{lo * 100:g}, {hi * 100:g}] %"
+        elif key.startswith("tat"):
+            limit = f"the temperature must lie in [{lo:g}, {hi:g}] K"
+        else:
+            limit = (f"the fixed part must lie in [{lo / 100:g}, {hi / 100:g}] hPa (it is "
+                     f"{terms[key].absolute / 100.0:g} hPa)")
+        raise ValueError(f"--{key.replace('_', '-')} {terms[key].text!r}: {limit}") from None
+    # the pressure unit the user wrote (the first one given), for the chart and the text
+    given = [terms[k] for k in ("ps_bias", "ps_noise", "pitot_bias", "pitot_noise")
+             if terms[k].text.strip() not in ("0", "")]
+    punit = given[0].unit if given else "hPa"
     method = "monte_carlo" if args.monte_carlo else "linear"
     bud = error_budget(to_si(np.asarray(args.alt_ft), "ft"),
                        to_si(np.asarray(args.cas_kt), "kt"), acc, pitot=args.pitot_sensor,
                        recovery=args.recovery, dT=args.dT, method=method,
                        samples=args.monte_carlo or 2, seed=args.seed, profile=args.profile)
     if args.plot:
-        plot_budget(bud, outputs, quantity=args.quantity, path=args.plot)
+        plot_budget(bud, outputs, quantity=args.quantity, path=args.plot, pressure_unit=punit)
     if args.json:
         _dump(bud.as_dict())
         return 0
@@ -145,9 +184,8 @@ def _cmd_budget(args: argparse.Namespace) -> int:
               "sensitivities only.")
         print(f"\n{CAUTION}")
         return 0
-    print(f"\nSensors: static {args.ps_bias:+g} hPa bias, {args.ps_noise:g} hPa noise (1 sd); "
-          f"{bud.pitot} {args.pitot_bias:+g} hPa, {args.pitot_noise:g} hPa; "
-          f"TAT {args.tat_bias:+g} K, {args.tat_noise:g} K")
+    print(f"\nSensors (bias / noise, 1 sd): "
+          f"{acc.describe(punit).replace('pitot', bud.pitot, 1)}")
     how = ("linear propagation" if method == "linear"
            else f"Monte Carlo, {bud.samples} samples, seed {bud.seed}")
     data = getattr(bud, args.quantity)
@@ -206,12 +244,23 @@ def register(subparsers: Any) -> None:
     bud.add_argument("--pitot-sensor", choices=("qc", "pt"), default="qc",
                      help="second pressure sensor: differential impact pressure (qc, default) "
                           "or absolute total pressure (pt)")
-    for key, unit, what in (("ps", "hPa", "static pressure"), ("pitot", "hPa", "pitot sensor"),
-                            ("tat", "K", "total air temperature")):
-        bud.add_argument(f"--{key}-bias", type=float, default=0.0, metavar=unit,
-                         help=f"{what} bias, {unit} (default 0)")
-        bud.add_argument(f"--{key}-noise", type=float, default=0.0, metavar=unit,
-                         help=f"{what} noise standard deviation, {unit} (default 0)")
+    for key, what in (("ps", "static pressure"), ("pitot", "pitot sensor")):
+        bud.add_argument(f"--{key}-bias", default="0", metavar="P",
+                         help=f"{what} bias: a pressure (0.5hPa, 50Pa, 0.015inHg, 0.007psi; a "
+                              "bare number is hPa), a percentage of reading (0.02%%) or of "
+                              "full scale (0.05%%FS), or a sum (0.1hPa+0.01%%); default 0")
+        bud.add_argument(f"--{key}-noise", default="0", metavar="P",
+                         help=f"{what} noise standard deviation, same forms (default 0)")
+        bud.add_argument(f"--{key}-full-scale", type=quantity_type("pressure", "hPa"),
+                         default=None, metavar="P",
+                         help=f"{what} full scale, for percentages of full scale (e.g. "
+                              "1300hPa)")
+    bud.add_argument("--tat-bias", default="0", metavar="DT",
+                     help="total air temperature bias: 0.5 (K), 0.5K, 0.5degC, 0.9degF "
+                          "(default 0)")
+    bud.add_argument("--tat-noise", default="0", metavar="DT",
+                     help="total air temperature noise standard deviation, same forms "
+                          "(default 0)")
     bud.add_argument("--recovery", type=float, default=1.0, metavar="R",
                      help="TAT probe recovery factor (default 1)")
     bud.add_argument("--dT", type=float, default=0.0, metavar="K",

@@ -50,6 +50,13 @@ def mp_h(ps: mp.mpf) -> mp.mpf:
     return 20000 + (T11 / L2) * ((ps / P20) ** (-R * L2 / G0) - 1)
 
 
+def mp_pressure(h: mp.mpf) -> mp.mpf:
+    """Standard pressure, ICAO Doc 7488/3, 0..20 km."""
+    if h <= 11000:
+        return P0 * ((T0 - L0 * h) / T0) ** (G0 / (R * L0))
+    return P11 * mp.exp(-G0 * (h - 11000) / (R * T11))
+
+
 def mp_f(m: mp.mpf) -> mp.mpf:
     """qc/ps, NACA Report 1135 eq. 44 (M <= 1) and eq. 100 (M > 1)."""
     if m <= 1:
@@ -236,6 +243,55 @@ def test_pt_sensor_static_error_enters_impact_pressure() -> None:
     assert cas_shift < 0.0
 
 
+def test_noise_in_percent_of_reading_follows_the_hydrostatic_equation() -> None:
+    # A static sensor with noise k * ps: sd(H) = |dH/dps| k ps = k R T(H) / g0 at every
+    # altitude (hydrostatic equation, ICAO constants from ICAO Doc 7488/3), independent
+    # of the pressure itself.
+    k = 2.0e-4
+    alts = [0.0, 5000.0, 11000.0, 15000.0]
+    b = error_budget(alts, [120.0], SensorAccuracy(ps_noise_rel=k))
+    for i, h in enumerate(alts):
+        temp = T0 - L0 * h if h <= 11000 else T11
+        assert b.sd["pressure_altitude"][i, 0] == pytest.approx(float(k * R * temp / G0),
+                                                                rel=1e-12)
+        assert b.shift["pressure_altitude"][i, 0] == 0.0
+
+
+def test_bias_in_percent_of_reading_of_a_pitot_sensor() -> None:
+    # A qc bias of k qc shifts CAS by dCAS/dqc k qc; a pt sensor's bias k pt by
+    # dCAS/dqc k (ps + qc) (qc = pt - ps): the reading each sensor actually has.
+    k = 1.0e-3
+    alt, cas = [0.0, 9000.0], [80.0, 200.0]
+    for pitot in ("qc", "pt"):
+        b = error_budget(alt, cas, SensorAccuracy(pitot_bias_rel=k), pitot=pitot)
+        for i, h in enumerate(alt):
+            for j, v in enumerate(cas):
+                qc = float(P0 * mp_f(mp.mpf(v) / A0))
+                ps = float(mp_pressure(mp.mpf(h)))
+                reading = qc if pitot == "qc" else ps + qc
+                dcas = b.sensitivities.d("cas", b.sensitivities.inputs[1])[i, j]
+                assert b.shift["cas"][i, j] == pytest.approx(dcas * k * reading, rel=1e-12)
+
+
+def test_percent_of_reading_linear_and_monte_carlo_agree() -> None:
+    acc = SensorAccuracy(ps_noise=20.0, ps_noise_rel=3e-4, pitot_bias_rel=-2e-3,
+                         pitot_noise_rel=5e-3, tat_noise=0.3)
+    alt, cas = [0.0, 8000.0], [90.0, 240.0]
+    lin = error_budget(alt, cas, acc)
+    mc = error_budget(alt, cas, acc, method="monte_carlo", samples=20000, seed=11)
+    assert mc.shift_se is not None and mc.sd_se is not None
+    for k in OUTPUTS:
+        assert np.all(np.abs(lin.shift[k] - mc.shift[k]) <= 5.0 * mc.shift_se[k]), k
+        assert np.all(np.abs(lin.sd[k] - mc.sd[k]) <= 5.0 * mc.sd_se[k]), k
+
+
+def test_accuracy_describe_states_the_units() -> None:
+    acc = SensorAccuracy(ps_noise=50.0, pitot_bias=-20.0, pitot_bias_rel=1e-4, tat_noise=0.5)
+    assert acc.describe("hPa") == ("static 0 hPa / 0.5 hPa, pitot -0.2 hPa + 0.01 % rdg / "
+                                   "0 hPa, TAT 0 K / 0.5 K")
+    assert acc.describe("Pa").startswith("static 0 Pa / 50 Pa, pitot -20 Pa + 0.01 % rdg")
+
+
 # ------------------------------------------------------------------ domain errors
 
 
@@ -245,6 +301,10 @@ def test_pt_sensor_static_error_enters_impact_pressure() -> None:
     ({"tat_bias": math.inf}, Status.INVALID_INPUT),
     ({"pitot_bias": 2.0e4}, Status.OUT_OF_RANGE),
     ({"tat_noise": 2.0e4}, Status.OUT_OF_RANGE),
+    ({"ps_noise_rel": -1e-4}, Status.INVALID_INPUT),
+    ({"ps_noise_rel": 0.2}, Status.OUT_OF_RANGE),
+    ({"pitot_bias_rel": -0.2}, Status.OUT_OF_RANGE),
+    ({"pitot_bias_rel": math.nan}, Status.INVALID_INPUT),
 ])
 def test_sensor_accuracy_domain_errors(kw: dict[str, float], status: Status) -> None:
     with pytest.raises(DomainError) as info:
