@@ -21,6 +21,26 @@ def test_tolerance_forms_in_si() -> None:
     assert parse_tolerance("0.001", "1").absolute == 0.001
 
 
+@pytest.mark.parametrize("text, unit, si", [
+    # the spellings airdata.units accepts elsewhere (kts, mb, C, feet) mean the same here
+    ("1 kts", "m/s", 1852 / 3600), ("1 knots", "m/s", 1852 / 3600), ("2 feet", "m", 0.6096),
+    ("0.5 mb", "Pa", 50.0), ("0.5 C", "K", 0.5), ("0.9 degF", "K", 0.5),
+    ("0.01 psia", "Pa", 0.01 * 0.45359237 * 9.80665 / 0.0254 ** 2),
+])
+def test_tolerance_unit_spellings(text: str, unit: str, si: float) -> None:
+    assert parse_tolerance(text, unit).absolute == pytest.approx(si, rel=1e-15)
+
+
+def test_envelope_limits_in_unit_spellings() -> None:
+    r = parse_requirements(HEAD + '[function.pressure_altitude]\nenvelope.ps = ["116 mb", '
+                           '"1100 millibar"]\nerror.h = "2 feet"\n')
+    fn = r.functions["pressure_altitude"]
+    assert fn.envelope["ps"] == (11600.0, 110000.0)
+    assert fn.envelope_text["ps"] == ("116 mb", "1100 millibar")  # reported as written
+    assert fn.errors["h"].absolute == pytest.approx(0.6096, rel=1e-15)
+    assert fn.errors["h"].unit == "ft"
+
+
 @pytest.mark.parametrize("text, unit, message", [
     ("1 kt", "m", "unit 'kt' is a speed unit; the output is in m"),
     ("1 furlong", "m", "unit 'furlong' is an unknown unit"),

@@ -136,6 +136,15 @@ def _unit_dimension(unit: str) -> str | None:
         return None
 
 
+def _canonical(unit: str) -> str:
+    """The unit's name in :mod:`airdata.units` (``kts`` -> ``kt``, ``mb`` -> ``mbar``,
+    ``C`` -> ``degC``, ``feet`` -> ``ft``); an unknown spelling is returned unchanged."""
+    try:
+        return _units.normalize_unit(unit)
+    except ValueError:
+        return unit
+
+
 def _compatible(unit: str, si_unit: str) -> bool:
     """Can a quantity of ``si_unit`` be written in ``unit``?"""
     if unit == si_unit:
@@ -196,6 +205,7 @@ def parse_tolerance(text: str, si_unit: str, where: str = "error") -> Tolerance:
                         f"{where}: {_short(term)} has no unit; the output is in {si_unit}: "
                         f"write it with a unit (e.g. {', '.join(_suggest(si_unit))})")
                 u = "1"
+            u = _canonical(u)
             if not _compatible(u, si_unit):
                 known = _unit_dimension(u)
                 why = "an unknown unit" if known is None else f"a {known} unit"
@@ -233,7 +243,7 @@ def _parse_limit(value: Any, si_unit: str, where: str) -> tuple[float, str]:
         if not m:
             raise RequirementsError(f"{where}: cannot read {_short(value)}: expected "
                                     "NUMBER UNIT")
-        u = (m.group(2) or "").strip() or si_unit
+        u = _canonical((m.group(2) or "").strip() or si_unit)
         if si_unit == "" and u in ("", "1"):
             u = ""
         if si_unit and not _compatible(u, si_unit):
