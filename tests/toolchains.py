@@ -35,6 +35,8 @@ PACKAGES = {
     "make": "make",
     "arm-linux-gnueabihf-gcc": "gcc-arm-linux-gnueabihf libc6-dev-armhf-cross",
     "aarch64-linux-gnu-gcc": "gcc-aarch64-linux-gnu libc6-dev-arm64-cross",
+    "aarch64-linux-gnu-objdump": "binutils-aarch64-linux-gnu",
+    "objdump": "binutils",
     "powerpc-linux-gnu-gcc": "gcc-powerpc-linux-gnu libc6-dev-powerpc-cross",
     "i686-linux-gnu-gcc": "gcc-i686-linux-gnu libc6-dev-i386-cross",
     "qemu-arm": "qemu-user",

@@ -44,6 +44,11 @@
  * One summary line per function (its cases and failed cases); contract failures are
  * printed below it.  The exit status is non-zero on any failure.
  */
+/* The runner's own NaN and bound comparisons need value-safe floating point. */
+#if defined(__FAST_MATH__) || (defined(__FINITE_MATH_ONLY__) && __FINITE_MATH_ONLY__)
+#error "airdata vector runner: built with -ffast-math or -ffinite-math-only, under which its NaN checks cannot work; build it without them"
+#endif
+
 #include <math.h>
 #include <stddef.h>
 #include <stdint.h>

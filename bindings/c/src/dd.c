@@ -3,8 +3,8 @@
  * operations in the same order as airdata/_dd.py, so the binary64 build gives the
  * reference's bits wherever libm does.
  *
- * COMPILE WITH -ffp-contract=off (see ad_dd.h): the algorithms below are exact only
- * when every product and sum is rounded separately.
+ * Compiled with -ffp-contract=off (see ad_dd.h): the algorithms below are exact by
+ * construction only when every product and sum is rounded separately.
  *
  * Error bounds (Dekker 1971; binary64 u = 2^-53, binary32 u = 2^-24): two-sum and
  * two-product are exact; add, mul, div and sqrt are accurate to a few u^2 relative
