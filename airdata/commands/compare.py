@@ -31,7 +31,8 @@ from ..chain import AirData
 from ..profiles import get_profile
 from ..status import Status
 
-__all__ = ["Disagreement", "Comparison", "port_air_data", "compare_chunk", "available"]
+__all__ = ["Disagreement", "Comparison", "port_air_data", "compare_chunk", "available",
+           "UserPort"]
 
 F64 = NDArray[np.float64]
 
@@ -66,6 +67,66 @@ def port_air_data(ps: F64, pt: F64, tat: F64, recovery: float, setting: F64 | No
         v = getattr(out, key)
         fields[key] = None if v is None else np.asarray(v, dtype=np.float64)
     return AirData(**fields, status=np.asarray(out.status, dtype=np.int8), profile=out.profile)
+
+
+class UserPort:
+    """A user's port (C sources or a library implementing ``ad_air_data`` of airdata.h),
+    compiled the way ``airdata port check`` compiles it, run on each chunk of a series.
+
+    Parameters
+    ----------
+    spec : PortSpec
+        What to compile (:func:`airdata.portcheck.commands.port_spec`).
+    precision : {"double", "single"}
+        binary64 or binary32 build (``-DAIRDATA_SINGLE``).
+
+    Raises
+    ------
+    PortBuildError
+        The port does not compile, or does not define ``ad_air_data``.
+    """
+
+    def __init__(self, spec: Any, precision: str) -> None:
+        from ..portcheck.build import build_port
+        from ..vectors.catalogue import get_spec
+
+        chain = get_spec("air_data")
+        self.label = spec.label
+        self._inputs = [(a.name, a.kind) for a in chain.args]
+        self._outputs = [k for k, _ in chain.outputs]
+        self._c_function = chain.c_name
+        self.port = build_port(spec, [self._cases(np.empty((0, len(self._inputs))))],
+                               precision)
+
+    def _cases(self, x: F64) -> Any:
+        """The series in the shape :class:`airdata.portcheck.build.Port` runs."""
+        from types import SimpleNamespace
+
+        return SimpleNamespace(name="air_data", c_function=self._c_function,
+                               inputs=self._inputs, outputs=self._outputs, x=x,
+                               count=x.shape[0])
+
+    def air_data(self, ps: F64, pt: F64, tat: F64, recovery: float, setting: F64 | None,
+                 noise: float, profile: str) -> AirData:
+        """The port's chain on a chunk, as an :class:`~airdata.AirData` of float64."""
+        n = len(ps)
+        use = setting is not None
+        cols = {"ps": ps, "pt": pt, "tat": tat, "recovery": np.full(n, float(recovery)),
+                "setting": (np.asarray(setting, float) if use
+                            else np.full(n, get_profile(profile).p0)),
+                "use_setting": np.full(n, 1.0 if use else 0.0),
+                "noise_band": np.full(n, float(noise))}
+        x = np.column_stack([np.asarray(cols[name], dtype=np.float64)
+                             for name, _ in self._inputs])
+        y, st = self.port.run(self._cases(x))
+        fields: dict[str, Any] = {k: y[:, j].copy() for j, k in enumerate(self._outputs)}
+        if not use:
+            fields["baro_altitude"] = None
+        return AirData(**fields, status=st.astype(np.int8), profile=profile)
+
+    def close(self) -> None:
+        """Remove the build directory."""
+        self.port.close()
 
 
 @dataclass(frozen=True)
@@ -110,6 +171,8 @@ class Comparison:
         Disagreements in total (sample x output).
     kept : list of Disagreement
         The first ``limit`` disagreements.
+    port : str
+        The port compared: ``"bundled"`` or the user's files.
     worst : dict of str to float
         Largest |port - reference| / bound per output, over every sample.  Where the
         difference was within K eps |y| the full scale was not computed and K eps |y|
@@ -125,6 +188,7 @@ class Comparison:
     worst: dict[str, float] = field(default_factory=dict)
     units: dict[str, str] = field(default_factory=dict)
     worst_abs: dict[str, tuple[float, int]] = field(default_factory=dict)
+    port: str = "bundled"
 
     def unit(self, key: str) -> str:
         """The unit an output is reported in (``units``, else its SI unit)."""
@@ -164,7 +228,7 @@ class Comparison:
         largest = {k: {"value": self.in_units(k, v, difference=True),
                        "unit": self.difference_unit(k), "row": row, "si": v}
                    for k, (v, row) in self.worst_abs.items()}
-        return {"precision": self.precision, "k": K, "eps": eps,
+        return {"precision": self.precision, "port": self.port, "k": K, "eps": eps,
                 "samples": self.samples, "disagreeing_samples": self.disagreeing_samples,
                 "disagreements": self.disagreements,
                 "worst_ratio_to_bound": self.worst,

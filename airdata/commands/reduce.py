@@ -284,6 +284,12 @@ def register(subparsers: argparse._SubParsersAction) -> None:
                    help="run the reference and the C port on every row and report the "
                         "samples where they disagree beyond the vectors' bound "
                         "K eps scale (exit status 1 if any)")
+    from ..portcheck.commands import add_port_options
+
+    add_port_options(p.add_argument_group(
+        "your own port", "with --compare or --engine cport: replay the series through your "
+        "port's ad_air_data (airdata.h), compiled as 'airdata port check' compiles it, in "
+        "the --precision given"))
     p.add_argument("--ignore-recorded", action="store_true",
                    help="pass <output>_rec columns through without comparing them")
     p.add_argument("--plot", metavar="FILE",
@@ -531,8 +537,11 @@ def reduce_chunk(rows: list[list[str]], plan: _Plan, args: argparse.Namespace,
                              profile=args.profile, strict=False)
     if args.engine == "cport" or args.compare:
         from .compare import port_air_data
-        port = port_air_data(ps, pt, tat, args.recovery, setting, noise, args.profile,
-                             args.precision)
+        user = getattr(args, "user_port", None)
+        port = (user.air_data(ps, pt, tat, args.recovery, setting, noise, args.profile)
+                if user is not None else
+                port_air_data(ps, pt, tat, args.recovery, setting, noise, args.profile,
+                              args.precision))
         if args.engine == "cport":
             out = port
     assert out is not None
@@ -763,12 +772,20 @@ def run(args: argparse.Namespace) -> int:
             check_available()
         except PlotUnavailableError as exc:
             return fail(COMMAND, str(exc), 1)
-    if (args.engine == "cport" or args.compare):
+    user_port = args.source or args.library
+    if user_port and not (args.engine == "cport" or args.compare):
+        parser.error("--source and --library name the port that --compare or --engine "
+                     "cport runs: add one of them")
+    if (args.engine == "cport" or args.compare) and not user_port:
         from .compare import available
         if not available():
             return fail(COMMAND, "the C port (airdata._cport64/_cport32) is not built: "
                         "reinstall the package with a C compiler, or run without "
                         "--engine cport/--compare", 1)
+    if user_port:
+        failed = _build_user_port(args)
+        if failed is not None:
+            return failed
     try:
         summary = _run(args)
     except _UsageError as exc:
@@ -783,6 +800,9 @@ def run(args: argparse.Namespace) -> int:
         return fail(COMMAND, f"{exc.filename}: no such file", 1)
     except DomainError as exc:
         return fail(COMMAND, str(exc), 1)
+    finally:
+        if getattr(args, "user_port", None) is not None:
+            args.user_port.close()
     cmp = summary.comparison
     if args.json:
         doc = {"input": args.input, "output": args.output, "rows": summary.rows,
@@ -914,8 +934,10 @@ def _run(args: argparse.Namespace) -> Summary:
         summary.notes.extend(dialect.notes)
         if args.compare:
             ou = output_units(args)
+            user = getattr(args, "user_port", None)
             summary.comparison = Comparison(
-                args.precision, units={key: ou[dim] for key, _, dim in OUTPUTS})
+                args.precision, units={key: ou[dim] for key, _, dim in OUTPUTS},
+                port="bundled" if user is None else user.label)
         if plan.recorded:
             summary.recorded = RecordedComparison(plan.recorded, args.engine,
                                                   "time" in plan.roles, plan.phase is not None)
@@ -984,6 +1006,27 @@ def _run(args: argparse.Namespace) -> Summary:
         reader.close()
     summary.seconds = time.monotonic() - start
     return summary
+
+
+def _build_user_port(args: argparse.Namespace) -> int | None:
+    """Compile the port of --source/--library before any work; the exit status on error."""
+    from ..portcheck.build import PortBuildError
+    from ..portcheck.commands import port_spec
+    from .compare import UserPort
+
+    if args.profile == "us1976" and all(n != "AIRDATA_PROFILE_US1976" for n, _ in args.define):
+        args.define.append(("AIRDATA_PROFILE_US1976", None))
+    spec = port_spec(args)
+    try:
+        args.user_port = UserPort(spec, args.precision)
+    except PortBuildError as exc:
+        if "undefined symbol" in exc.output or "does not define" in exc.what:
+            return fail(COMMAND, f"the port ({spec.label}, {args.precision}) does not define "
+                        "ad_air_data: reduce replays a series through the port's air-data "
+                        "chain (airdata.h); 'airdata port check' judges the functions a port "
+                        "has", 1)
+        return fail(COMMAND, str(exc), 1)
+    return None
 
 
 def _decimal_points(rows: list[list[str]], plan: _Plan) -> list[list[str]]:

@@ -40,7 +40,24 @@ def _define(text: str) -> tuple[str, str | None]:
     return name, (value if sep else None)
 
 
-def _spec(args: argparse.Namespace) -> PortSpec:
+def add_port_options(parser: argparse._ActionsContainer) -> None:
+    """``--source``, ``--library``, ``--include``, ``--define``: the port to compile
+    (shared by ``port check`` and ``reduce --compare``)."""
+    parser.add_argument("--source", nargs="+", metavar="FILE.c",
+                        help="your port's C sources (they implement airdata.h)")
+    parser.add_argument("--library", metavar="LIB",
+                        help="a prebuilt static (.a) or shared (.so) library implementing "
+                             "airdata.h, built for the --precision given")
+    parser.add_argument("--include", action="append", default=[], metavar="DIR",
+                        help="extra include directory (repeatable); the bundled airdata.h "
+                             "is searched last")
+    parser.add_argument("--define", action="append", default=[], type=_define,
+                        metavar="NAME[=V]", help="preprocessor definition (repeatable)")
+
+
+def port_spec(args: argparse.Namespace) -> PortSpec:
+    """The port that ``--source``/``--library``/``--include``/``--define`` name (the
+    bundled one without ``--source`` and ``--library``)."""
     includes = tuple(Path(p) for p in args.include)
     defines = tuple(args.define)
     if args.library:
@@ -168,7 +185,7 @@ def cmd_check(args: argparse.Namespace) -> int:
                            _skip_tags(args))
         if suite.profile == "us1976" and all(n != _US1976 for n, _ in args.define):
             args.define.append((_US1976, None))
-        spec = _spec(args)
+        spec = port_spec(args)
         declared = _declared(args, list(suite.functions))
         req = load_requirements(args.requirements) if args.requirements else None
     except (SuiteError, PortBuildError, RequirementsError, ValueError) as exc:
@@ -292,16 +309,7 @@ def register(subparsers: Any) -> None:
     c.add_argument("--precision", choices=["double", "single", "both"], default=None,
                    help="binary64 (double), binary32 (single) or both; default both, or "
                         "double with --library")
-    c.add_argument("--source", nargs="+", metavar="FILE.c",
-                   help="your port's C sources (they implement airdata.h)")
-    c.add_argument("--library", metavar="LIB",
-                   help="a prebuilt static (.a) or shared (.so) library implementing "
-                        "airdata.h, built for the --precision given")
-    c.add_argument("--include", action="append", default=[], metavar="DIR",
-                   help="extra include directory (repeatable); the bundled airdata.h is "
-                        "searched last")
-    c.add_argument("--define", action="append", default=[], type=_define,
-                   metavar="NAME[=V]", help="preprocessor definition (repeatable)")
+    add_port_options(c)
     c.add_argument("--only", nargs="+", metavar="FUNC",
                    help="check only these functions (reference names, e.g. pressure_altitude)")
     c.add_argument("--skip-subnormal", action="store_true",
