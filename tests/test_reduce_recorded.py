@@ -162,6 +162,35 @@ def test_largest_band_of_the_static_source_error(demo_run: tuple[dict, Path]) ->
     assert by_column(doc, "hp_rec[ft]")["largest_phase"] == "dash hold"
 
 
+@pytest.mark.parametrize(("options", "unit", "edges", "to_unit"), [
+    (("--alt-unit", "m"), "m", (0.0, 3000.0, 6000.0, 9000.0, 12000.0, 15000.0), 1.0),
+    (("--alt-unit", "FL"), "FL", (0.0, 100.0, 200.0, 300.0, 400.0, 500.0), 1.0 / 30.48),
+    (("--si",), "m", (0.0, 3000.0, 6000.0, 9000.0, 12000.0, 15000.0), 1.0),
+])
+def test_altitude_bands_follow_the_output_unit(tmp_path: Path, options: tuple[str, ...],
+                                               unit: str, edges: tuple[float, ...],
+                                               to_unit: float) -> None:
+    # Band edges in the unit the engineer reads (1 FL = 100 ft = 30.48 m, exact), each
+    # band's count from the library's pressure altitudes of the same readings.
+    r = airdata_cmd("reduce", str(DEMO_REC), "-o", str(tmp_path / "o.csv"), "--json",
+                    *options)
+    assert r.returncode == 0, r.stderr
+    o = by_column(json.loads(r.stdout), "hp_rec[ft]")
+    assert o["band_unit"] == unit
+    header, rows = read_csv(DEMO_REC)
+    ref = reference_of(header, rows)
+    rec = column(rows, header.index("hp_rec[ft]"))
+    h = np.asarray(ref.pressure_altitude) * to_unit
+    ok = np.isfinite(rec) & np.isfinite(h)
+    which = np.searchsorted(edges, h[ok], side="right")
+    labels = ([f"< {edges[0]:g} {unit}"]
+              + [f"{a:g}-{b:g} {unit}" for a, b in zip(edges[:-1], edges[1:], strict=True)]
+              + [f">= {edges[-1]:g} {unit}"])
+    want = {labels[k]: int((which == k).sum()) for k in range(len(labels))
+            if (which == k).any()}
+    assert {b["band"]: b["compared"] for b in o["bands"]} == want
+
+
 def test_static_source_error_band_on_a_clean_file(tmp_path: Path) -> None:
     # One condition per altitude band; the recorded altitude is the pressure altitude of
     # ps (1 + k M^2).  First order (hydrostatic equation dp/dh = -rho g, from memory):

@@ -371,6 +371,37 @@ BANDS: dict[str, tuple[str, str, tuple[float, ...]]] = {
     "mach": ("Mach", "1", (0.4, 0.7, 0.9, 1.1, 1.5)),
 }
 
+#: Round edges in the other output units a run may use (``--alt-unit``,
+#: ``--speed-unit``): the bands follow the units the engineer reads, not only ft and kt.
+#: A unit not listed here (ft/min for speeds) keeps the edges of :data:`BANDS`.
+BAND_EDGES_BY_UNIT: dict[str, dict[str, tuple[float, ...]]] = {
+    "altitude": {"m": (0.0, 3000.0, 6000.0, 9000.0, 12000.0, 15000.0),
+                 "km": (0.0, 3.0, 6.0, 9.0, 12.0, 15.0),
+                 "FL": (0.0, 100.0, 200.0, 300.0, 400.0, 500.0)},
+    "cas": {"m/s": (50.0, 100.0, 150.0, 200.0), "km/h": (200.0, 400.0, 600.0, 800.0),
+            "mph": (100.0, 200.0, 300.0, 400.0)},
+}
+
+
+def band_scheme(kind: str, units: dict[str, str] | None = None
+                ) -> tuple[str, str, tuple[float, ...]]:
+    """(words, unit, edges) of the bands of ``kind`` in the run's output units.
+
+    Parameters
+    ----------
+    kind : {"altitude", "cas", "mach"}
+        What the band is taken from.
+    units : dict of str to str, optional
+        Output unit per dimension (``length``, ``speed``); default ft and kt.
+    """
+    words, unit, edges = BANDS[kind]
+    dim = {"altitude": "length", "cas": "speed"}.get(kind)
+    want = (units or {}).get(dim, unit) if dim else unit
+    table = BAND_EDGES_BY_UNIT.get(kind, {})
+    if want in table:
+        return words, want, table[want]
+    return words, unit, edges
+
 
 def recorded_names() -> dict[str, str]:
     """Accepted names of recorded outputs (without ``_rec``, compared without case) -> key.
@@ -385,9 +416,10 @@ def recorded_names() -> dict[str, str]:
     return names
 
 
-def band_labels(kind: str) -> list[str]:
-    """Labels of the bands of ``kind`` (``altitude``, ``cas``, ``mach``), in order."""
-    _, unit, edges = BANDS[kind]
+def band_labels(kind: str, units: dict[str, str] | None = None) -> list[str]:
+    """Labels of the bands of ``kind`` (``altitude``, ``cas``, ``mach``), in order, in the
+    run's output ``units`` (see :func:`band_scheme`)."""
+    _, unit, edges = band_scheme(kind, units)
     suffix = "" if unit == "1" else f" {unit}"
     labels = [f"< {edges[0]:g}{suffix}"]
     labels += [f"{lo:g}-{hi:g}{suffix}" for lo, hi in zip(edges[:-1], edges[1:], strict=True)]
@@ -489,16 +521,21 @@ class RecordedComparison:
         What computed the reference values (``reference`` or ``cport``).
     has_time, has_phase : bool
         Whether rows carry a time and a phase.
+    units : dict of str to str
+        The run's output unit per dimension: the band edges are in these (ft and kt when
+        empty; see :func:`band_scheme`).
     """
 
     columns: list[RecordedColumn]
     engine: str = "reference"
     has_time: bool = False
     has_phase: bool = False
+    units: dict[str, str] = field(default_factory=dict)
     totals: list[_ColumnTotals] = field(default_factory=list)
 
     def __post_init__(self) -> None:
-        self.totals = [_ColumnTotals(bands={b: _Stats() for b in band_labels(c.band)})
+        self.totals = [_ColumnTotals(bands={b: _Stats()
+                                            for b in band_labels(c.band, self.units)})
                        for c in self.columns]
 
     def add(self, first_row: int, recorded: F64, unreadable: NDArray[np.bool_],
@@ -523,9 +560,11 @@ class RecordedComparison:
         n = recorded.shape[0]
         rows = first_row + np.arange(n, dtype=np.int64)
         diffs = np.full((n, len(self.columns)), np.nan)
-        hp_ft = np.asarray(u.from_si(np.asarray(ref.pressure_altitude, float), "ft"))
-        band_x = {"altitude": hp_ft,
-                  "cas": np.asarray(u.from_si(np.asarray(ref.cas, float), "kt")),
+        band_x = {"altitude": np.asarray(u.from_si(
+                      np.asarray(ref.pressure_altitude, float),
+                      band_scheme("altitude", self.units)[1])),
+                  "cas": np.asarray(u.from_si(np.asarray(ref.cas, float),
+                                              band_scheme("cas", self.units)[1])),
                   "mach": np.asarray(ref.mach, float)}
         for j, (col, tot) in enumerate(zip(self.columns, self.totals, strict=True)):
             value = getattr(ref, col.key)
@@ -543,8 +582,8 @@ class RecordedComparison:
             idx = np.flatnonzero(ok)
             sub_t = None if times is None else [times[i] for i in idx]
             tot.overall.add(d[idx], rows[idx], sub_t)
-            _, _, edges = BANDS[col.band]
-            labels = band_labels(col.band)
+            _, _, edges = band_scheme(col.band, self.units)
+            labels = band_labels(col.band, self.units)
             which = np.searchsorted(np.asarray(edges), band_x[col.band][idx], side="right")
             for b in np.unique(which):
                 sel = idx[which == b]
@@ -563,7 +602,7 @@ class RecordedComparison:
         out: dict[str, Any] = {"difference": "recorded - reference", "engine": self.engine,
                                "outputs": []}
         for col, tot in zip(self.columns, self.totals, strict=True):
-            words, bunit, _ = BANDS[col.band]
+            words, bunit, _ = band_scheme(col.band, self.units)
             bands = [{"band": label, **st.as_dict()} for label, st in tot.bands.items()
                      if st.count]
             doc = {"column": col.header, "output": col.short, "key": col.key,

@@ -940,7 +940,8 @@ def _run(args: argparse.Namespace) -> Summary:
                 port="bundled" if user is None else user.label)
         if plan.recorded:
             summary.recorded = RecordedComparison(plan.recorded, args.engine,
-                                                  "time" in plan.roles, plan.phase is not None)
+                                                  "time" in plan.roles, plan.phase is not None,
+                                                  output_units(args))
         collector = None
         timeaxis = TimeAxis() if "time" in plan.roles else None
         if args.plot:
