@@ -33,7 +33,17 @@ from .._inputs import Domain
 from ..profiles import Profile, get_profile
 from ..status import Status
 from . import history
-from .catalogue import CATALOGUE, TAGS, Arg, CaseSeed, FunctionSpec, around, evaluate, window
+from .catalogue import (
+    CATALOGUE,
+    RANGE_WINDOW,
+    TAGS,
+    Arg,
+    CaseSeed,
+    FunctionSpec,
+    around,
+    evaluate,
+    window,
+)
 from .cheader import render_common_header, render_function_header, render_umbrella_header
 from .jsonio import dumps_compact, encode_number
 from .scale import (
@@ -165,7 +175,9 @@ def generate_seeds(spec: FunctionSpec, profile: Profile) -> list[CaseSeed]:
                 for v in window(seam):
                     seeds.append(CaseSeed(_with(spec, nominals[0], **{a.name: v}),
                                           (tag, "seam-window")))
-    # 3. Range ends at 0, +-1, +-4 ulp; 4. invalid and out-of-range inputs.
+    # 3. Range ends at 0, +-1, +-4 ulp and in a window of relative offsets (an end
+    #    typed with fewer digits, or rounded to binary32, moves by one of them);
+    # 4. invalid and out-of-range inputs.
     for a in real:
         assert a.domain is not None
         d = a.domain(profile)
@@ -175,6 +187,9 @@ def generate_seeds(spec: FunctionSpec, profile: Profile) -> list[CaseSeed]:
                     seeds.append(CaseSeed(_with(spec, base, **{a.name: v}),
                                           ("range-end", "extreme")
                                           + (("ulp-offset",) if moved else ())))
+            for v in window(end, RANGE_WINDOW):
+                seeds.append(CaseSeed(_with(spec, nominals[0], **{a.name: v}),
+                                      ("range-end", "seam-window")))
         for v, tags in _invalid_values(d):
             seeds.append(CaseSeed(_with(spec, nominals[0], **{a.name: v}), tags))
     # 5. Two bad arguments: the first in argument order decides.

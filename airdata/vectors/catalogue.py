@@ -90,11 +90,18 @@ WINDOW = (1e-15, 1e-14, 1e-13, 1e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-7, 1e-6, 1e-5
           1e-3)
 
 
-def window(x: float) -> list[float]:
-    """``x`` moved by every relative offset of :data:`WINDOW`, below and above (an
-    offset that rounds back onto ``x`` is dropped)."""
+#: Relative offsets of the window around a range end (suite 2.1.0): fewer than a seam's,
+#: since every argument of every function has two ends; 1e-7 and 1e-5 are the binary32
+#: spacing and a constant typed with 6 digits, 1e-3 one typed with 4.
+RANGE_WINDOW = (1e-15, 1e-12, 1e-9, 1e-7, 1e-5, 1e-3)
+
+
+def window(x: float, offsets: tuple[float, ...] = WINDOW) -> list[float]:
+    """``x`` moved by every relative offset of ``offsets`` (default :data:`WINDOW`), below
+    and above (an offset that rounds back onto ``x`` is dropped; for ``x = 0`` the
+    offsets are absolute)."""
     out = []
-    for r in WINDOW:
+    for r in offsets:
         for sign in (-1.0, 1.0):
             v = x * (1.0 + sign * r) if x != 0.0 else sign * r
             if v != x:

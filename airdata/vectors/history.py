@@ -10,6 +10,13 @@ __all__ = ["CURRENT", "ENTRIES", "POLICY", "changelog_text", "readme_text"]
 
 #: (suite version, schema version, what changed) - newest first.
 ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
+    ("2.1.0", 1, (
+        "Minor: cases added, existing cases unchanged. Range-end windows (tags "
+        "`range-end`, `seam-window`): every end of every argument's valid range also at "
+        "relative offsets 1e-15, 1e-12, 1e-9, 1e-7, 1e-5 and 1e-3 on both sides (absolute "
+        "offsets at an end of 0), so that an end typed with 4 or 6 digits, or rounded to "
+        "binary32, is caught; before, range ends were sampled at 0, 1 and 4 ulp only.",
+    )),
     ("2.0.0", 1, (
         "Major: expected values of cases with subnormal or near-underflow inputs change "
         "beyond their tolerance (they were wrong): cas_from_impact_pressure and "
