@@ -37,6 +37,8 @@ EXPECTED_GOALS: dict[str, tuple[str, float] | None] = {
     "8": ("<=", bench.FLAT_LIMIT),  # flat memory over chunks
     "9a": ("<=", 2.0),     # reduce CSV -> CSV within 2x pyarrow's read + write
     "9b": ("<=", 2.0),     # reduce CSV -> Parquet within 2x pyarrow's read + write
+    "10a": ("<=", 3.0),    # scalar pressure_altitude within 3x a careful pure-Python one
+    "10b": (">=", 1.0),    # scalar atmosphere faster than fluids per point
 }
 
 
@@ -49,6 +51,19 @@ def quick_run(tmp_path_factory: pytest.TempPathFactory) -> tuple[dict[str, Any],
         capture_output=True, text=True, timeout=120)
     assert proc.returncode == 0, proc.stderr[-2000:]
     return json.loads(Path(out).read_text(encoding="utf-8")), proc.stdout
+
+
+def test_pure_python_peer_computes_pressure_altitude() -> None:
+    # Line 10a compares against a peer; a wrong peer would make the ratio meaningless.
+    from airdata import pressure_altitude
+    from airdata.profiles import get_profile
+
+    prof = get_profile("icao")
+    bases = list(zip(prof.layer_base, prof.base_pressure, prof.base_temperature,
+                     prof.lapse_rate, strict=True))[::-1]
+    for ps in np.geomspace(1.0, 170000.0, 400):
+        got = bench._python_pressure_altitude(float(ps), bases, prof.R, prof.g0)
+        assert got == pytest.approx(pressure_altitude(float(ps)), rel=1e-12, abs=1e-9)
 
 
 def test_every_line_present_once_with_its_goal(quick_run: tuple[dict[str, Any], str]) -> None:
@@ -90,9 +105,9 @@ def test_lines_with_installed_peers_are_measured(quick_run: tuple[dict[str, Any]
     """Only a missing optional peer or tool may leave a line unmeasured."""
     report, _ = quick_run
     by_key = {ln["key"]: ln for ln in report["lines"]}
-    must = ["1", "2", "7a", "7b", "8"]
+    must = ["1", "2", "7a", "7b", "8", "10a"]
     if find_spec("fluids") is not None:
-        must.append("3")
+        must += ["3", "10b"]
     if find_spec("scipy") is not None:
         must.append("4")
     for key in must:
