@@ -53,6 +53,8 @@ from typing import Any
 import numpy as np
 from numpy.typing import NDArray
 
+from .notice import CAUTION
+
 F64 = NDArray[np.float64]
 
 __all__ = ["SEED", "SIZES", "chain_inputs", "run_bench", "format_table", "register"]
@@ -804,7 +806,6 @@ def _cmd_bench(args: argparse.Namespace) -> int:
 
 def register(subparsers: Any) -> None:
     """Add the ``bench`` sub-command to the ``airdata`` parser."""
-    from .notice import CAUTION
 
     p = subparsers.add_parser(
         "bench", help="measure speed and memory of the reference and the C port",

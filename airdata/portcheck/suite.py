@@ -11,7 +11,6 @@ An engineering and verification aid, not certified flight software.
 
 from __future__ import annotations
 
-import hashlib
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 from pathlib import Path
@@ -21,7 +20,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from ..vectors.catalogue import CATALOGUE
-from ..vectors.jsonio import VectorFileError, decode_number, load_json
+from ..vectors.jsonio import VectorFileError, decode_number, load_json, sha256_hex
 from ..vectors.schema import SCHEMA_VERSION, function_schema, manifest_schema, validate
 
 __all__ = ["SuiteError", "FunctionCases", "LoadedSuite", "load_cases", "B32_CODES"]
@@ -95,10 +94,6 @@ class LoadedSuite:
     functions: dict[str, FunctionCases] = field(default_factory=dict)
     #: Cases left out at loading by tag (``skip_tags`` of :func:`load_cases`), per function.
     skipped: dict[str, int] = field(default_factory=dict)
-
-
-def _sha(data: bytes) -> str:
-    return hashlib.sha256(data).hexdigest()
 
 
 def _num(pair: Any, where: str) -> float:
@@ -210,8 +205,8 @@ def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None
         if not path.is_file():
             raise SuiteError(f"{path}: listed in the manifest but missing")
         data = path.read_bytes()
-        if len(data) != entry["bytes"] or _sha(data) != entry["sha256"]:
-            raise SuiteError(f"{path}: checksum mismatch (SHA-256 {_sha(data)}, "
+        if len(data) != entry["bytes"] or sha256_hex(data) != entry["sha256"]:
+            raise SuiteError(f"{path}: checksum mismatch (SHA-256 {sha256_hex(data)}, "
                              f"{len(data)} bytes; the manifest says {entry['sha256']}, "
                              f"{entry['bytes']} bytes)")
         spec = _SPECS.get(name)

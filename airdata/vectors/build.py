@@ -18,7 +18,6 @@ added or removed.
 
 from __future__ import annotations
 
-import hashlib
 import math
 from collections.abc import Iterable
 from dataclasses import dataclass
@@ -45,7 +44,7 @@ from .catalogue import (
     window,
 )
 from .cheader import render_common_header, render_function_header, render_umbrella_header
-from .jsonio import dumps_compact, encode_number
+from .jsonio import dumps_compact, encode_number, sha256_hex
 from .scale import (
     BINARY32_RULE,
     EPS_BINARY32,
@@ -94,7 +93,7 @@ def case_id(spec: FunctionSpec, inputs: dict[str, float]) -> str:
     parts = [spec.name] + [
         (str(int(inputs[a.name])) if a.kind == "flag" else float(inputs[a.name]).hex())
         for a in spec.args]
-    return hashlib.sha256("|".join(parts).encode("ascii")).hexdigest()[:12]
+    return sha256_hex("|".join(parts).encode("ascii"))[:12]
 
 
 # ---------------------------------------------------------------------------------
@@ -347,10 +346,6 @@ def render_json(doc: Any) -> str:
     return json.dumps(doc, indent=1, ensure_ascii=True, allow_nan=False) + "\n"
 
 
-def _sha(data: bytes) -> str:
-    return hashlib.sha256(data).hexdigest()
-
-
 def header_path(name: str) -> str:
     """Suite-relative path of the C header of function ``name``."""
     return f"c/ad_vec_{name}.h"
@@ -370,7 +365,7 @@ def suite_files(profile: Profile | str | None = None,
         path = f"functions/{spec.name}.json"
         files[path] = body
         entries.append({"function": spec.name, "path": path, "c_header": header_path(spec.name),
-                        "sha256": _sha(body), "bytes": len(body),
+                        "sha256": sha256_hex(body), "bytes": len(body),
                         "valid": doc["counts"]["valid"], "invalid": doc["counts"]["invalid"]})
     others: dict[str, bytes] = {}
     others[schema_path_of_manifest()] = render_json(manifest_schema()).encode("ascii")
@@ -396,7 +391,7 @@ def suite_files(profile: Profile | str | None = None,
         "statuses": statuses_block(),
         "tolerance": tolerance_block(),
         "functions": entries,
-        "files": [{"path": p, "sha256": _sha(b), "bytes": len(b)}
+        "files": [{"path": p, "sha256": sha256_hex(b), "bytes": len(b)}
                   for p, b in sorted(others.items())],
         "totals": {"functions": len(entries),
                    "cases": sum(e["valid"] + e["invalid"] for e in entries),

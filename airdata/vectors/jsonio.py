@@ -12,6 +12,7 @@ naming the file and the problem.
 
 from __future__ import annotations
 
+import hashlib
 import json
 import math
 import os
@@ -19,7 +20,7 @@ import re
 from pathlib import Path
 from typing import Any
 
-__all__ = ["VectorFileError", "MAX_FILE_BYTES", "encode_number", "decode_number",
+__all__ = ["VectorFileError", "MAX_FILE_BYTES", "encode_number", "decode_number", "sha256_hex",
            "hex_literal", "load_json", "dumps_compact"]
 
 #: Largest file a suite may contain; anything bigger is refused before it is read.
@@ -144,3 +145,9 @@ def load_json(path: str | os.PathLike[str], max_bytes: int = MAX_FILE_BYTES) -> 
 def dumps_compact(value: Any) -> str:
     """Compact, deterministic JSON of one value (no spaces, ASCII only)."""
     return json.dumps(value, separators=(",", ":"), ensure_ascii=True, allow_nan=False)
+
+
+def sha256_hex(data: bytes) -> str:
+    """SHA-256 of ``data`` as 64 hex digits: the digest of a suite file in its manifest
+    (one home for the build, ``vectors verify`` and port check's suite loader)."""
+    return hashlib.sha256(data).hexdigest()

@@ -12,7 +12,6 @@ to 2 % (they are stored to 3 digits).
 
 from __future__ import annotations
 
-import hashlib
 import json
 import math
 from dataclasses import dataclass, field
@@ -27,7 +26,7 @@ from ..status import Status
 from .build import case_id, evaluate_cases, header_path, render_json
 from .catalogue import CATALOGUE, FunctionSpec
 from .cheader import render_common_header, render_function_header, render_umbrella_header
-from .jsonio import MAX_FILE_BYTES, VectorFileError, decode_number, load_json
+from .jsonio import MAX_FILE_BYTES, VectorFileError, decode_number, load_json, sha256_hex
 from .scale import EPS_BINARY64, K
 from .schema import (
     SCHEMA_VERSION,
@@ -107,10 +106,6 @@ class VerifyReport:
                 f"({self.valid} valid, {self.invalid} invalid); {what}")
 
 
-def _sha(data: bytes) -> str:
-    return hashlib.sha256(data).hexdigest()
-
-
 def _schema_problems(rel: str, doc: Any, schema: dict[str, Any]) -> list[Problem]:
     out = []
     try:
@@ -168,8 +163,8 @@ def load_suite(root: str | Path, problems: list[Problem] | None = None,
                                             f"the limit of {max_bytes}"))
             continue
         data = p.read_bytes()
-        if len(data) != entry["bytes"] or _sha(data) != entry["sha256"]:
-            probs.append(Problem(rel, None, f"checksum mismatch: SHA-256 {_sha(data)} "
+        if len(data) != entry["bytes"] or sha256_hex(data) != entry["sha256"]:
+            probs.append(Problem(rel, None, f"checksum mismatch: SHA-256 {sha256_hex(data)} "
                                             f"({len(data)} bytes), manifest says "
                                             f"{entry['sha256']} ({entry['bytes']} bytes)"))
     for sub in ("functions", "schema", "c"):
