@@ -13,14 +13,13 @@ A missing tool skips with the package to install; with AIRDATA_REQUIRE_TOOLCHAIN
 
 from __future__ import annotations
 
-import json
 import os
-import re
 import struct
 import subprocess
 from pathlib import Path
 
 import pytest
+from runner_text import runner_summary, suite_counts
 from toolchains import need
 
 ROOT = Path(__file__).resolve().parents[1]
@@ -33,19 +32,6 @@ PRECISIONS = {"binary64": [], "binary32": ["-DAIRDATA_SINGLE"]}
 M4 = ["-std=c99", "-mcpu=cortex-m4", "-mthumb", "-mfpu=fpv4-sp-d16", "-mfloat-abi=hard",
       "-Os", "-ffunction-sections", "-fdata-sections", "-ffreestanding", "-ffp-contract=off",
       "-Wall", "-Wextra", "-Wpedantic", "-Wconversion", "-Wdouble-promotion", "-Werror"]
-
-
-def _manifest_counts() -> dict[str, int]:
-    manifest = json.loads((VECTORS / "manifest.json").read_text())
-    return {e["function"]: e["valid"] + e["invalid"] for e in manifest["functions"]}
-
-
-def _summary(out: str) -> dict[str, tuple[int, int, int]]:
-    """Runner summary lines: function -> (cases, passed, failed)."""
-    rows = {}
-    for m in re.finditer(r"^(\w+)\s+(\d+) cases\s+(\d+) passed\s+(\d+) failed", out, re.M):
-        rows[m.group(1)] = (int(m.group(2)), int(m.group(3)), int(m.group(4)))
-    return rows
 
 
 # --- 32-bit ARM hard-float Linux under qemu-arm ------------------------------------
@@ -85,8 +71,8 @@ def test_arm_runner_is_a_32bit_hard_float_arm_executable(arm_runs: dict) -> None
 @pytest.mark.parametrize("precision", list(PRECISIONS))
 def test_arm_runner_passes_every_vector(arm_runs: dict, precision: str) -> None:
     _, out, rc = arm_runs[precision]
-    rows = _summary(out)
-    counts = _manifest_counts()
+    rows = runner_summary(out)
+    counts = suite_counts(VECTORS)
     print(f"\nqemu-arm {precision}: " + ", ".join(
         f"{k} {v[1]}/{v[0]}" for k, v in rows.items()))
     assert set(rows) == set(counts), out[-2000:]

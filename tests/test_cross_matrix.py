@@ -27,6 +27,7 @@ import subprocess
 from pathlib import Path
 
 import pytest
+from runner_text import runner_summary, suite_counts
 from toolchains import host_cc, need
 
 ROOT = Path(__file__).resolve().parents[1]
@@ -52,18 +53,6 @@ TARGETS = {
                                                    "-ffp-contract=off"]),
     "i686-x87": ("i686-linux-gnu-gcc", None, "", ["-mfpmath=387", "-ffp-contract=off"]),
 }
-
-
-def _counts() -> dict[str, int]:
-    manifest = json.loads((VECTORS / "manifest.json").read_text())
-    return {e["function"]: e["valid"] + e["invalid"] for e in manifest["functions"]}
-
-
-def _summary(out: str) -> dict[str, tuple[int, int, int]]:
-    rows = {}
-    for m in re.finditer(r"^(\w+)\s+(\d+) cases\s+(\d+) passed\s+(\d+) failed", out, re.M):
-        rows[m.group(1)] = (int(m.group(2)), int(m.group(3)), int(m.group(4)))
-    return rows
 
 
 def _build(cc: str, flags: list[str], exe: Path, extra: list[str] = ()) -> None:
@@ -94,8 +83,8 @@ def runs(tmp_path_factory: pytest.TempPathFactory) -> dict[tuple[str, str], str]
 
 
 def _assert_all_pass(out: str) -> None:
-    rows = _summary(out)
-    counts = _counts()
+    rows = runner_summary(out)
+    counts = suite_counts(VECTORS)
     assert set(rows) == set(counts), out[-2000:]
     for name, (cases, _, failed) in rows.items():
         assert cases == counts[name], name

@@ -1,0 +1,21 @@
+"""Reading the vector runner's summary text, for the tests that run it on other targets."""
+
+from __future__ import annotations
+
+import json
+import re
+from pathlib import Path
+
+
+def suite_counts(vectors: Path) -> dict[str, int]:
+    """Cases per function of the suite in ``vectors`` (its manifest)."""
+    manifest = json.loads((vectors / "manifest.json").read_text())
+    return {e["function"]: e["valid"] + e["invalid"] for e in manifest["functions"]}
+
+
+def runner_summary(out: str) -> dict[str, tuple[int, int, int]]:
+    """The runner's summary lines: function -> (cases, passed, failed)."""
+    rows = {}
+    for m in re.finditer(r"^(\w+)\s+(\d+) cases\s+(\d+) passed\s+(\d+) failed", out, re.M):
+        rows[m.group(1)] = (int(m.group(2)), int(m.group(3)), int(m.group(4)))
+    return rows
