@@ -15,7 +15,7 @@ from ._layers import layer_table
 from .altimetry import altitude_of_density, altitude_of_pressure, density_range
 from .pitot import RATIO_LIMIT, RATIO_MAX, mach_from_ratio
 from .profiles import GAMMA, Profile, get_profile
-from .status import Status
+from .status import DomainError, Status
 
 __all__ = ["AirData", "air_data", "NOISE_BAND"]
 
@@ -73,6 +73,17 @@ class AirData:
     profile: str
 
 
+def check_noise_band(noise_band: float) -> None:
+    """Refuse a noise band outside [0, 10000] Pa: a DomainError with the status the C port
+    and the vectors give (NaN, infinite or negative: INVALID_INPUT; above: OUT_OF_RANGE).
+
+    It is one setting for every element, so it is refused even with ``strict=False``.
+    """
+    st = Status(int(_NOISE.classify(np.atleast_1d(np.float64(noise_band)))[0]))
+    if st != Status.OK:
+        raise DomainError("noise_band", float(noise_band), None, _NOISE.describe(), st)
+
+
 def air_data(
     ps: ArrayLike,
     pt: ArrayLike,
@@ -122,7 +133,10 @@ def air_data(
     ------
     DomainError
         A bad or out-of-range input, a negative impact pressure beyond the noise band,
-        a Mach number or CAS beyond 10 (a0), or a density outside the model.
+        a Mach number or CAS beyond 10 (a0), or a density outside the model; a
+        ``noise_band`` outside [0, 10000] Pa (NaN or negative: INVALID_INPUT, above:
+        OUT_OF_RANGE), also with ``strict=False``, since it is one setting for every
+        element.
 
     Notes
     -----
@@ -141,8 +155,7 @@ def air_data(
     True
     """
     prof = get_profile(profile)
-    if not (np.isfinite(noise_band) and _NOISE.lo <= noise_band <= _NOISE.hi):
-        raise ValueError(f"noise_band = {noise_band!r} Pa: valid range is {_NOISE.describe()}")
+    check_noise_band(noise_band)
     named = {
         "ps": (ps, dom.pressure(prof)),
         "pt": (pt, _TOTAL_PRESSURE),

@@ -453,14 +453,10 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     Raises
     ------
     DomainError
-        As the reference.
-    ValueError
-        ``noise_band`` NaN or outside [0, 10000] Pa, as the reference.
+        As the reference, ``noise_band`` outside [0, 10000] Pa included.
     """
     prof = _check_profile(profile)
-    nb = _chain._NOISE
-    if not (np.isfinite(noise_band) and nb.lo <= noise_band <= nb.hi):
-        raise ValueError(f"noise_band = {noise_band!r} Pa: valid range is {nb.describe()}")
+    _chain.check_noise_band(noise_band)
     named: dict[str, tuple[ArrayLike, str]] = {
         "ps": (ps, "pressure"), "pt": (pt, "total_pressure"), "tat": (tat, "temperature"),
         "recovery": (recovery, "recovery")}
