@@ -249,9 +249,10 @@ def altimeter_setting(
     t = layer_table(prof)
     p, e = args["ps"], args["elevation"]
     h_setting = altitude_of_pressure(p, t) - e
-    out = (h_setting < prof.h_min) | (h_setting > prof.layer_base[1])
+    ends = dom.setting_altitude(prof)
+    out = (h_setting < ends.lo) | (h_setting > ends.hi)
     args.flag(out, Status.OUT_OF_RANGE, "pressure_altitude(ps) - elevation", h_setting,
-              f"[{prof.h_min!r}, {prof.layer_base[1]!r}] m")
+              ends.describe())
     n = t.n[0]  # R L/g0 with the troposphere lapse rate taken positive, 0.0065 K/m
     x = np.exp(n * np.log(prof.p0 / p)) * (-t.m[0] * e)
     return args.finish(p * np.exp(np.log1p(x) / n))

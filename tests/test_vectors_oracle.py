@@ -126,3 +126,42 @@ def test_every_vector_case_against_the_oracle(name: str) -> None:
     ids = {f.split(":")[0].split()[0] for f in failures}
     known = {i for i in KNOWN_DEFECTS if i in {c["id"] for c in _doc(name)["cases"]}}
     assert ids == known, "\n".join(failures) or f"known defects now pass: {sorted(known)}"
+
+
+# ----------------------------------------------------------------------------- statuses
+# at a derived limit, against exact arithmetic
+
+def test_altimeter_setting_statuses_at_the_derived_limits_against_exact_arithmetic() -> None:
+    # The setting's derived check is on its pressure altitude H(ps) - elevation, valid in
+    # [-5000, 11000] m widened by 8 eps (airdata._domains.setting_altitude).  For every
+    # case with valid inputs whose exact H(ps) - elevation (the 50-digit oracle) lies within
+    # 1e-9 relative of an end of [-5000, 11000] m, the expected status must be the one exact
+    # arithmetic gives against those (float) ends.  Before suite 3.0.0, 13 of 59 did not.
+    import mpmath as mp
+
+    from airdata import _domains as dom
+    from airdata.profiles import get_profile
+
+    prof = get_profile("icao")
+    doc = _doc("altimeter_setting")
+    ps_range, elev = dom.setting(prof), dom.ELEVATION
+    ends = dom.setting_altitude(prof)
+    near = 0
+    disagree = []
+    for case in doc["cases"]:
+        x = {k: _val(v) for k, v in case["inputs"].items()}
+        ps, h = x["ps"], x["elevation"]
+        if not (math.isfinite(ps) and ps_range.lo <= ps <= ps_range.hi
+                and math.isfinite(h) and elev.lo <= h <= elev.hi):
+            continue
+        alt = oracle.pressure_altitude(ps) - mp.mpf(h)
+        if min(abs(alt / prof.h_min - 1), abs(alt / prof.layer_base[1] - 1)) > 1e-9:
+            continue
+        near += 1
+        want = OK if ends.lo <= alt <= ends.hi else 2  # 2: OUT_OF_RANGE
+        if case["status"] != want:
+            disagree.append((case["id"], float(alt), case["status"]))
+    print(f"\naltimeter_setting: {near} cases within 1e-9 relative of an end of the setting "
+          f"altitude; {len(disagree)} disagree with exact arithmetic")
+    assert near > 50
+    assert disagree == []

@@ -10,6 +10,18 @@ __all__ = ["CURRENT", "ENTRIES", "POLICY", "changelog_text", "readme_text"]
 
 #: (suite version, schema version, what changed) - newest first.
 ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
+    ("3.0.0", 1, (
+        "Major: expected statuses of altimeter_setting change where the last bit of "
+        "binary64 decided them. The setting's pressure altitude H(ps) - elevation is now "
+        "checked against [-5000, 11000] m widened by 8 eps relative at both ends, as the "
+        "other derived limits are (airdata._domains.setting_altitude; C: "
+        "AD_SETTING_ALT_LO/HI). Before, 13 of the 59 cases whose exact setting altitude "
+        "(50-digit oracle) lies within 1e-9 relative of an end expected the status of binary64 "
+        "rounding, not of exact arithmetic (11 accepted a station a fraction of an ulp "
+        "beyond an end, 2 refused one inside); an x87 build decided two of them the "
+        "other way. Every such case now agrees with exact arithmetic "
+        "(tests/test_vectors_oracle.py).",
+    )),
     ("2.1.0", 1, (
         "Minor: cases added, existing cases unchanged. Range-end windows (tags "
         "`range-end`, `seam-window`): every end of every argument's valid range also at "

@@ -41,6 +41,8 @@
 #define AD_SUTH_BETA_LO (-0x1.7e967p-45f)
 #define AD_RATIO_LIMIT 0x1.006f16p+7f
 #define AD_MACH_LIMIT 0x1.4p+3f
+#define AD_SETTING_ALT_LO (-0x1.388p+12f)
+#define AD_SETTING_ALT_HI 0x1.57cp+13f
 #define AD_K_0P2 0x1.99999ap-3f /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.666666p-1f /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.333334p+0f /* 1.2: (gamma + 1)/2 */
@@ -123,6 +125,8 @@
 #define AD_SUTH_BETA_LO (-0x1.1d1d13ae7ffdp-74)
 #define AD_RATIO_LIMIT 0x1.006f167bffa86p+7
 #define AD_MACH_LIMIT 0x1.400000000000ap+3
+#define AD_SETTING_ALT_LO (-0x1.388000000000ap+12)
+#define AD_SETTING_ALT_HI 0x1.57c000000000bp+13
 #define AD_K_0P2 0x1.999999999999ap-3 /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.6666666666666p-1 /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.3333333333333p+0 /* 1.2: (gamma + 1)/2 */
@@ -208,6 +212,8 @@
 #define AD_SUTH_BETA_LO (-0x1.7e967p-45f)
 #define AD_RATIO_LIMIT 0x1.006f16p+7f
 #define AD_MACH_LIMIT 0x1.4p+3f
+#define AD_SETTING_ALT_LO (-0x1.388p+12f)
+#define AD_SETTING_ALT_HI 0x1.57cp+13f
 #define AD_K_0P2 0x1.99999ap-3f /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.666666p-1f /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.333334p+0f /* 1.2: (gamma + 1)/2 */
@@ -290,6 +296,8 @@
 #define AD_SUTH_BETA_LO (-0x1.1d1d13ae7ffdp-74)
 #define AD_RATIO_LIMIT 0x1.006f167bffa86p+7
 #define AD_MACH_LIMIT 0x1.400000000000ap+3
+#define AD_SETTING_ALT_LO (-0x1.388000000000ap+12)
+#define AD_SETTING_ALT_HI 0x1.57c000000000bp+13
 #define AD_K_0P2 0x1.999999999999ap-3 /* 0.2: (gamma - 1)/2 */
 #define AD_K_0P7 0x1.6666666666666p-1 /* 0.7: gamma/2 */
 #define AD_K_1P2 0x1.3333333333333p+0 /* 1.2: (gamma + 1)/2 */

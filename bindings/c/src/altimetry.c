@@ -131,7 +131,7 @@ ad_status ad_altimeter_setting(ad_real ps, ad_real elevation, ad_real *setting)
     }
     if (st == AD_OK) {
         const ad_real h_setting = ad_i_altitude_of_pressure(ps) - elevation;
-        if ((h_setting < AD_ALTITUDE_LO) || (h_setting > AD_LAYER1_BASE)) {
+        if ((h_setting < AD_SETTING_ALT_LO) || (h_setting > AD_SETTING_ALT_HI)) {
             st = AD_OUT_OF_RANGE;
         }
     }

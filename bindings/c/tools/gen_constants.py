@@ -28,6 +28,9 @@ Derived-quantity limits
     reference's ``pitot.RATIO_LIMIT``/``MACH_LIMIT``; binary32: the same exactly
     widened value rounded to binary32 (the slack is below half a binary32 ulp, so
     these equal the binary32 RATIO_MAX and MACH_MAX: the check is exact there).
+    ``AD_SETTING_ALT_LO``/``AD_SETTING_ALT_HI``: the altimeter setting's pressure
+    altitude range [-5000, 11000] m widened the same way
+    (``airdata._domains.setting_altitude``).
 
 All values are written as C99 hex-float literals.
 """
@@ -121,15 +124,20 @@ def low_parts(profile, single: bool, src: dict[str, object]) -> dict[str, object
 
 
 def limits(profile, single: bool, ex: dict[str, object]) -> dict[str, float]:  # noqa: ANN001
-    """RATIO_MAX and MACH_MAX widened by DERIVED_SLACK (see the module docstring)."""
+    """RATIO_MAX, MACH_MAX and the setting altitude's ends widened by DERIVED_SLACK (see
+    the module docstring)."""
     dom = _mod("airdata._domains")
     pit = _mod("airdata.pitot")
+    ends = dom.setting_altitude(profile)
     if not single:
-        return {"AD_RATIO_LIMIT": pit.RATIO_LIMIT, "AD_MACH_LIMIT": pit.MACH_LIMIT}
+        return {"AD_RATIO_LIMIT": pit.RATIO_LIMIT, "AD_MACH_LIMIT": pit.MACH_LIMIT,
+                "AD_SETTING_ALT_LO": ends.lo, "AD_SETTING_ALT_HI": ends.hi}
     widen = 1 + Fraction(dom.DERIVED_SLACK)
     ratio = Fraction(ex["scalars"]["AD_RATIO_MAX"]) * widen  # type: ignore[index]
     return {"AD_RATIO_LIMIT": round_binary(ratio, 24),
-            "AD_MACH_LIMIT": round_binary(Fraction(dom.MACH_MAX) * widen, 24)}
+            "AD_MACH_LIMIT": round_binary(Fraction(dom.MACH_MAX) * widen, 24),
+            "AD_SETTING_ALT_LO": round_binary(Fraction(profile.h_min) * widen, 24),
+            "AD_SETTING_ALT_HI": round_binary(Fraction(profile.layer_base[1]) * widen, 24)}
 
 
 def exact(profile) -> dict[str, object]:  # noqa: ANN001
