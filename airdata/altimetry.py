@@ -323,9 +323,17 @@ def altitude_of_density(p: F64, temp: F64, rho: F64, t: LayerTable) -> F64:
 
 @cache
 def density_range(prof: Profile) -> tuple[float, float]:
-    """Standard densities at the top and the bottom of the model, kg/m3 (derived once)."""
+    """Valid range of a derived density ps/(R sat), kg/m3 (derived once): the standard
+    densities at the top and the bottom of the model, widened by DERIVED_SLACK (8 eps
+    relative) as the other derived limits are.
+
+    Without the slack the last bit of binary64 decided a case whose exact density lies a
+    fraction of an ulp beyond an end (measured against the 50-digit oracle in
+    tests/test_vectors_oracle.py; the C port's AD_RHO_MIN/AD_RHO_MAX are these values).
+    """
     t = layer_table(prof)
     h = np.array([prof.h_max, prof.h_min])
     i = layer_of_altitude(h, t)
     rho = standard_pressure(h, i, t) / (prof.R * standard_temperature(h, i, t))
-    return float(rho[0]), float(rho[1])
+    return (float(rho[0]) * (1.0 - dom.DERIVED_SLACK),
+            float(rho[1]) * (1.0 + dom.DERIVED_SLACK))

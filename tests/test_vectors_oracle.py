@@ -137,11 +137,10 @@ def test_altimeter_setting_statuses_at_the_derived_limits_against_exact_arithmet
     # case with valid inputs whose exact H(ps) - elevation (the 50-digit oracle) lies within
     # 1e-9 relative of an end of [-5000, 11000] m, the expected status must be the one exact
     # arithmetic gives against those (float) ends.  Before suite 3.0.0, 13 of 59 did not.
-    import mpmath as mp
-
     from airdata import _domains as dom
     from airdata.profiles import get_profile
 
+    mp = oracle.mp  # the oracle's own 50-digit context
     prof = get_profile("icao")
     doc = _doc("altimeter_setting")
     ps_range, elev = dom.setting(prof), dom.ELEVATION
@@ -164,4 +163,39 @@ def test_altimeter_setting_statuses_at_the_derived_limits_against_exact_arithmet
     print(f"\naltimeter_setting: {near} cases within 1e-9 relative of an end of the setting "
           f"altitude; {len(disagree)} disagree with exact arithmetic")
     assert near > 50
+    assert disagree == []
+
+
+def test_density_altitude_statuses_at_the_density_limits_against_exact_arithmetic() -> None:
+    # density_altitude's derived check: rho = ps/(R sat) within the model's densities
+    # [rho(84852 m), rho(-5000 m)] (the reference's binary64 values).  Every case with
+    # valid inputs whose exact density (50 digits, R of ICAO Doc 7488/3 from the oracle's
+    # profile) lies within 1e-9 relative of an end expects the status of exact arithmetic.
+    from airdata import _domains as dom
+    from airdata.altimetry import density_range
+    from airdata.profiles import get_profile
+
+    mp = oracle.mp  # the oracle's own 50-digit context
+    prof = get_profile("icao")
+    lo, hi = density_range(prof)
+    p_range, t_range = dom.pressure(prof), dom.TEMPERATURE
+    r = oracle.PROFILES["icao"].R
+    near = 0
+    disagree = []
+    for case in _doc("density_altitude")["cases"]:
+        x = {k: _val(v) for k, v in case["inputs"].items()}
+        ps, sat = x["ps"], x["sat"]
+        if not (math.isfinite(ps) and p_range.lo <= ps <= p_range.hi
+                and math.isfinite(sat) and t_range.lo <= sat <= t_range.hi):
+            continue
+        rho = mp.mpf(ps) / (r * mp.mpf(sat))
+        if min(abs(rho / lo - 1), abs(rho / hi - 1)) > 1e-9:
+            continue
+        near += 1
+        want = OK if lo <= rho <= hi else 2  # 2: OUT_OF_RANGE
+        if case["status"] != want:
+            disagree.append((case["id"], float(rho), case["status"]))
+    print(f"\ndensity_altitude: {near} cases within 1e-9 relative of a density limit; "
+          f"{len(disagree)} disagree with exact arithmetic")
+    assert near >= 10
     assert disagree == []

@@ -119,8 +119,8 @@
 #define AD_RATIO_SONIC 0x1.c92e02bcd9065p-1
 #define AD_RATIO_MAX 0x1.006f167bffa7ep+7
 #define AD_PHI_INF 0x1.dd2e86c35bdacp-1
-#define AD_RHO_MIN 0x1.d2ef71f7f00f7p-18
-#define AD_RHO_MAX 0x1.ee3304a8cbb2p+0
+#define AD_RHO_MIN 0x1.d2ef71f7f00e8p-18
+#define AD_RHO_MAX 0x1.ee3304a8cbb2fp+0
 #define AD_R_LO (-0x1.1e1c5c5bade8ap-46)
 #define AD_SUTH_BETA_LO (-0x1.1d1d13ae7ffdp-74)
 #define AD_RATIO_LIMIT 0x1.006f167bffa86p+7
@@ -290,8 +290,8 @@
 #define AD_RATIO_SONIC 0x1.c92e02bcd9065p-1
 #define AD_RATIO_MAX 0x1.006f167bffa7ep+7
 #define AD_PHI_INF 0x1.dd2e86c35bdacp-1
-#define AD_RHO_MIN 0x1.d2ee7a07272ccp-18
-#define AD_RHO_MAX 0x1.ee332842c4a11p+0
+#define AD_RHO_MIN 0x1.d2ee7a07272bdp-18
+#define AD_RHO_MAX 0x1.ee332842c4a2p+0
 #define AD_R_LO 0x1.187e7c06e19b9p-46
 #define AD_SUTH_BETA_LO (-0x1.1d1d13ae7ffdp-74)
 #define AD_RATIO_LIMIT 0x1.006f167bffa86p+7
