@@ -273,7 +273,8 @@ def density_altitude(
         Static pressure, Pa, in [0.3734, 177687] Pa (icao).
     sat : float or array_like
         Static air temperature, K, in [50, 5000].  The density ps/(R sat) must lie
-        within the model, [rho(84852 m), rho(-5000 m)].
+        within the model, [rho(84852 m), rho(-5000 m)] widened by 8 eps relative
+        (:func:`density_range`).
     profile : Profile or str, optional
         Constants profile, ``"icao"`` (default) or ``"us1976"``.
     strict : bool, optional
