@@ -131,6 +131,32 @@ def test_every_vector_case_against_the_oracle(name: str) -> None:
 # ----------------------------------------------------------------------------- statuses
 # at a derived limit, against exact arithmetic
 
+def _near_limit_disagreements(
+    name: str, ranges: dict[str, Any], derived: Any, ends: tuple[float, float],
+    natural: tuple[float, float],
+) -> tuple[int, list[tuple[str, float, int]]]:
+    """Cases of ``name`` with inputs in ``ranges`` whose exact derived quantity
+    (``derived(x)``, 50 digits) lies within 1e-9 relative of a ``natural`` end: their
+    count, and those whose expected status is not exact arithmetic's against ``ends``
+    (the float limits of the check: OK inside, OUT_OF_RANGE = 2 outside)."""
+    near = 0
+    disagree = []
+    for case in _doc(name)["cases"]:
+        x = {k: _val(v) for k, v in case["inputs"].items()}
+        if not all(math.isfinite(x[k]) and d.lo <= x[k] <= d.hi for k, d in ranges.items()):
+            continue
+        value = derived(x)
+        if min(abs(value / natural[0] - 1), abs(value / natural[1] - 1)) > 1e-9:
+            continue
+        near += 1
+        want = OK if ends[0] <= value <= ends[1] else 2
+        if case["status"] != want:
+            disagree.append((case["id"], float(value), case["status"]))
+    print(f"\n{name}: {near} cases within 1e-9 relative of a derived limit; "
+          f"{len(disagree)} disagree with exact arithmetic")
+    return near, disagree
+
+
 def test_altimeter_setting_statuses_at_the_derived_limits_against_exact_arithmetic() -> None:
     # The setting's derived check is on its pressure altitude H(ps) - elevation, valid in
     # [-5000, 11000] m widened by 8 eps (airdata._domains.setting_altitude).  For every
@@ -140,62 +166,31 @@ def test_altimeter_setting_statuses_at_the_derived_limits_against_exact_arithmet
     from airdata import _domains as dom
     from airdata.profiles import get_profile
 
-    mp = oracle.mp  # the oracle's own 50-digit context
     prof = get_profile("icao")
-    doc = _doc("altimeter_setting")
-    ps_range, elev = dom.setting(prof), dom.ELEVATION
     ends = dom.setting_altitude(prof)
-    near = 0
-    disagree = []
-    for case in doc["cases"]:
-        x = {k: _val(v) for k, v in case["inputs"].items()}
-        ps, h = x["ps"], x["elevation"]
-        if not (math.isfinite(ps) and ps_range.lo <= ps <= ps_range.hi
-                and math.isfinite(h) and elev.lo <= h <= elev.hi):
-            continue
-        alt = oracle.pressure_altitude(ps) - mp.mpf(h)
-        if min(abs(alt / prof.h_min - 1), abs(alt / prof.layer_base[1] - 1)) > 1e-9:
-            continue
-        near += 1
-        want = OK if ends.lo <= alt <= ends.hi else 2  # 2: OUT_OF_RANGE
-        if case["status"] != want:
-            disagree.append((case["id"], float(alt), case["status"]))
-    print(f"\naltimeter_setting: {near} cases within 1e-9 relative of an end of the setting "
-          f"altitude; {len(disagree)} disagree with exact arithmetic")
+    near, disagree = _near_limit_disagreements(
+        "altimeter_setting", {"ps": dom.setting(prof), "elevation": dom.ELEVATION},
+        lambda x: oracle.pressure_altitude(x["ps"]) - oracle.mp.mpf(x["elevation"]),
+        (ends.lo, ends.hi), (prof.h_min, prof.layer_base[1]))
     assert near > 50
     assert disagree == []
 
 
 def test_density_altitude_statuses_at_the_density_limits_against_exact_arithmetic() -> None:
     # density_altitude's derived check: rho = ps/(R sat) within the model's densities
-    # [rho(84852 m), rho(-5000 m)] (the reference's binary64 values).  Every case with
-    # valid inputs whose exact density (50 digits, R of ICAO Doc 7488/3 from the oracle's
-    # profile) lies within 1e-9 relative of an end expects the status of exact arithmetic.
+    # [rho(84852 m), rho(-5000 m)] widened by 8 eps (airdata.altimetry.density_range).
+    # Every case with valid inputs whose exact density (50 digits, R of ICAO Doc 7488/3
+    # from the oracle's profile) lies within 1e-9 relative of an end expects the status of
+    # exact arithmetic.  Before suite 3.0.0, 1 of 12 did not.
     from airdata import _domains as dom
     from airdata.altimetry import density_range
     from airdata.profiles import get_profile
 
-    mp = oracle.mp  # the oracle's own 50-digit context
     prof = get_profile("icao")
     lo, hi = density_range(prof)
-    p_range, t_range = dom.pressure(prof), dom.TEMPERATURE
-    r = oracle.PROFILES["icao"].R
-    near = 0
-    disagree = []
-    for case in _doc("density_altitude")["cases"]:
-        x = {k: _val(v) for k, v in case["inputs"].items()}
-        ps, sat = x["ps"], x["sat"]
-        if not (math.isfinite(ps) and p_range.lo <= ps <= p_range.hi
-                and math.isfinite(sat) and t_range.lo <= sat <= t_range.hi):
-            continue
-        rho = mp.mpf(ps) / (r * mp.mpf(sat))
-        if min(abs(rho / lo - 1), abs(rho / hi - 1)) > 1e-9:
-            continue
-        near += 1
-        want = OK if lo <= rho <= hi else 2  # 2: OUT_OF_RANGE
-        if case["status"] != want:
-            disagree.append((case["id"], float(rho), case["status"]))
-    print(f"\ndensity_altitude: {near} cases within 1e-9 relative of a density limit; "
-          f"{len(disagree)} disagree with exact arithmetic")
+    mp, r = oracle.mp, oracle.PROFILES["icao"].R
+    near, disagree = _near_limit_disagreements(
+        "density_altitude", {"ps": dom.pressure(prof), "sat": dom.TEMPERATURE},
+        lambda x: mp.mpf(x["ps"]) / (r * mp.mpf(x["sat"])), (lo, hi), (lo, hi))
     assert near >= 10
     assert disagree == []
