@@ -20,6 +20,7 @@ import math
 from pathlib import Path
 from typing import Any
 
+import numpy as np
 import pytest
 
 from airdata.vectors import jsonio
@@ -194,3 +195,123 @@ def test_density_altitude_statuses_at_the_density_limits_against_exact_arithmeti
         lambda x: mp.mpf(x["ps"]) / (r * mp.mpf(x["sat"])), (lo, hi), (lo, hi))
     assert near >= 10
     assert disagree == []
+
+
+# Every other derived check, table-driven: (function, the exact derived quantities of a
+# case as (value, float low end, float high end, natural end)).  A case is near when one
+# value lies within 1e-9 relative of its natural end (the exact limit: Mach 10, the
+# pitot ratio at Mach 10 (NACA Report 1135 eq. 100 in the oracle), EAS 4000 m/s, the
+# model's pressure range); its expected status must then be exact arithmetic's against
+# the float ends the reference checks (OK when every value is inside).
+_CHECKS_INF = float("inf")
+
+
+def _derived_checks() -> dict[str, Any]:
+    from airdata import _domains as dom
+    from airdata.pitot import MACH_LIMIT, RATIO_LIMIT, RATIO_MAX
+    from airdata.profiles import get_profile
+
+    mp = oracle.mp
+    p = oracle.PROFILES["icao"]
+    prange = dom.pressure(get_profile("icao"))
+    r10 = oracle.pitot_ratio(10)
+    ninf = -_CHECKS_INF
+
+    def ratio(v: Any, hi: float = RATIO_LIMIT) -> tuple[Any, float, float, Any]:
+        return (v, ninf, hi, r10)
+
+    def mach(v: Any, hi: float = MACH_LIMIT) -> tuple[Any, float, float, Any]:
+        return (v, ninf, hi, mp.mpf(10))
+
+    def stall(x: dict[str, float]) -> list[tuple[Any, float, float, Any]]:
+        eas = oracle.stall_eas(x["weight"], x["wing_area"], x["cl_max"], x["load_factor"])
+        out = [(eas, ninf, dom.SPEED.hi, mp.mpf(dom.SPEED.hi))]
+        if "ps" in x:
+            out.append(mach(oracle.mach_from_eas(eas, x["ps"]), dom.MACH_MAX))
+        return out
+
+    def cross(x: dict[str, float]) -> list[tuple[Any, float, float, Any]]:
+        f = oracle.pitot_ratio(x["mach_limit"])
+        ps = oracle.impact_pressure_from_cas(x["cas_limit"]) / f if f else mp.inf
+        return [mach(mp.mpf(x["cas_limit"]) / p.a0, dom.MACH_MAX),
+                (ps, prange.lo, prange.hi, mp.mpf(prange.lo)),
+                (ps, prange.lo, prange.hi, mp.mpf(prange.hi))]
+
+    def chain(x: dict[str, float]) -> list[tuple[Any, float, float, Any]]:
+        from airdata.altimetry import density_range
+        lo, hi = density_range(get_profile("icao"))
+        y = oracle.air_data(x["ps"], x["pt"], x["tat"], x["recovery"])
+        qc = y["impact_pressure"]
+        return [ratio(qc / mp.mpf(x["ps"])), ratio(qc / p.p0),
+                (y["density"], lo, hi, mp.mpf(lo)), (y["density"], lo, hi, mp.mpf(hi))]
+
+    return {
+        "mach_from_impact_pressure": lambda x: [ratio(mp.mpf(x["qc"]) / mp.mpf(x["ps"]))],
+        "cas_from_impact_pressure": lambda x: [ratio(mp.mpf(x["qc"]) / p.p0)],
+        "impact_pressure_from_cas": lambda x: [mach(mp.mpf(x["cas"]) / p.a0)],
+        "cas_from_mach": lambda x: [
+            ratio(mp.mpf(x["ps"]) * oracle.pitot_ratio(x["mach"]) / p.p0)],
+        "mach_from_cas": lambda x: [
+            mach(mp.mpf(x["cas"]) / p.a0),
+            ratio(oracle.impact_pressure_from_cas(x["cas"]) / mp.mpf(x["ps"]))],
+        "mach_from_eas": lambda x: [mach(oracle.mach_from_eas(x["eas"], x["ps"]))],
+        "mach_from_tas": lambda x: [mach(oracle.mach_from_tas(x["tas"], x["sat"]))],
+        "stall_eas": stall,
+        "stall_mach": stall,
+        "stall_tas": stall,
+        "stall_cas": lambda x: stall(x) + [ratio(
+            mp.mpf(x["ps"]) * oracle.pitot_ratio(oracle.stall_mach(
+                x["weight"], x["wing_area"], x["cl_max"], x["ps"], x["load_factor"])) / p.p0,
+            RATIO_MAX)],
+        "crossover_altitude": cross,
+        "max_operating_cas": lambda x: [mach(mp.mpf(x["cas_limit"]) / p.a0, dom.MACH_MAX)],
+        "max_operating_mach": lambda x: [mach(mp.mpf(x["cas_limit"]) / p.a0, dom.MACH_MAX)],
+        "air_data": chain,
+    }
+
+
+def _derived_disagreements(name: str, cases: list[dict[str, Any]]) -> tuple[int, list[Any]]:
+    """Near-limit cases of ``name`` among ``cases`` (see above): their count, and
+    (id, exact derived values, status) of those whose status is not exact arithmetic's."""
+    from airdata.profiles import get_profile
+
+    prof = get_profile("icao")
+    spec = get_spec(name)
+    checks = _derived_checks()[name]
+    near = 0
+    disagree = []
+    for case in cases:
+        x = {k: (v if k == "use_setting" else _val(v)) for k, v in case["inputs"].items()}
+        valid = all(a.domain(prof).all_valid(np.array([x[a.name]])) for a in spec.real_args
+                    if not (a.name == "setting" and x.get("use_setting") == 0))
+        if not valid or (name == "air_data" and x["pt"] < x["ps"]) or (
+                name == "crossover_altitude" and x["mach_limit"] >= 1.0):
+            continue
+        values = checks(x)
+        if not any(nat != 0 and abs(v / nat - 1) <= 1e-9 for v, _, _, nat in values):
+            continue
+        near += 1
+        want = OK if all(lo <= v <= hi for v, lo, hi, _ in values) else 2
+        if case["status"] != want:
+            disagree.append((case["id"], [oracle.mp.nstr(v, 20) for v, *_ in values],
+                             case["status"]))
+    return near, disagree
+
+
+@pytest.mark.parametrize("name", sorted(_derived_checks()))
+def test_statuses_at_every_other_derived_limit_against_exact_arithmetic(name: str) -> None:
+    near, disagree = _derived_disagreements(name, _doc(name)["cases"])
+    print(f"\n{name}: {near} cases within 1e-9 relative of a derived limit; "
+          f"{len(disagree)} disagree with exact arithmetic")
+    assert near > 0
+    assert disagree == []
+
+
+def test_the_derived_limit_check_sees_a_wrong_status() -> None:
+    # Control: the stall EAS check has no slack (4000 m/s exactly); flipping the status
+    # of each near case of stall_eas in a copy must be reported, case by case.
+    cases = _doc("stall_eas")["cases"]
+    near, _ = _derived_disagreements("stall_eas", cases)
+    flipped = [dict(c, status=OK if c["status"] == 2 else 2) for c in cases]
+    near_flipped, disagree = _derived_disagreements("stall_eas", flipped)
+    assert near_flipped == near == len(disagree) > 0
