@@ -35,8 +35,9 @@ import sys
 import tempfile
 import threading
 import time
-from collections.abc import Iterable, Sequence
+from collections.abc import Callable, Iterable, Sequence
 from pathlib import Path
+from typing import Any
 
 DISCLAIMER = "An engineering and verification aid, not certified flight software."
 
@@ -73,6 +74,44 @@ LAYER_LOW = {11: 2, 12: 1, 13: 3}
 #: Start-value coefficients of the supersonic Newton solver (pitot.c): a perturbed start
 #: is corrected by the iteration.
 SOLVER_START = {"AD_K_S1", "AD_K_S2", "AD_K_S3", "AD_K_5_14"}
+#: Upper range ends that a derived check shadows: every value above the shadowing limit
+#: is refused by that check with the same status, OUT_OF_RANGE, so raising such an end
+#: changes no result while the end stays above that limit (checked for each mutant from
+#: the profiles' constants).  Macro -> (what refuses the values, the limit from a profile).
+SHADOWED_HI: dict[str, tuple[str, Callable[[Any], float]]] = {
+    "AD_CAS_LIMIT_HI": (
+        "a CAS limit above 10 a0 is refused by the derived check of its sea-level Mach "
+        "number (limits.c)", lambda p: 10.0 * p.a0),
+    "AD_IMPACT_PRESSURE_HI": (
+        "an impact pressure above RATIO_MAX max(p_max, p0) is refused by the derived qc/ps "
+        "or qc/p0 check (pitot.c)",
+        lambda p: _ratio_limit() * max(p.p_max, p.p0)),
+    "AD_SUBSONIC_MACH_LIMIT_HI": (
+        "a Mach limit of 1 or more is refused by crossover_altitude's subsonic check "
+        "(limits.c)", lambda p: 1.0),
+}
+
+
+def _ratio_limit() -> float:
+    from airdata.pitot import RATIO_LIMIT
+    return RATIO_LIMIT
+
+
+def _shadowed(m: Mutant) -> str | None:
+    """The reason a raised upper range end of ``m`` changes no result, or None."""
+    if m.macro not in SHADOWED_HI:
+        return None
+    from airdata.profiles import get_profile
+    old = parse_float_literal(m.original)[0]
+    new = parse_float_literal(m.replacement)[0]
+    what, limit_of = SHADOWED_HI[m.macro]
+    limit = max(limit_of(get_profile(name)) for name in ("icao", "us1976"))
+    if not new > old >= limit:
+        return None
+    return (f"range end shadowed: {m.macro} raised from {old!r} to {new!r}, but {what}: "
+            f"every value above {limit:.6g} has that status already")
+
+
 #: Loop-bound macros that count iterations of a convergent solver.
 SOLVER_STEPS = {"AD_NEWTON_STEPS"}
 #: An operand naming a limit of a domain or of a derived check.
@@ -997,6 +1036,71 @@ def probe_equality(b: Builder, m: Mutant, source: str) -> list[str] | None:
     return hits
 
 
+def _probe_inside(lo: float, hi: float) -> str:
+    return (
+        "#ifndef AD_MUT_PROBE_DEFINED\n#define AD_MUT_PROBE_DEFINED\n#include <stdio.h>\n"
+        "static int ad_mut_in(double a)\n{\n    static int seen = 0;\n"
+        f"    if ((a >= {lo.hex()}) && (a <= {hi.hex()}) && !seen) {{\n        seen = 1;\n"
+        "        fputs(\"AD_MUT_PROBE_INSIDE\\n\", stderr);\n    }\n    return 0;\n}\n#endif\n"
+    )
+
+
+def probe_switch(b: Builder, m: Mutant) -> list[str] | None:
+    """Configurations in which some case compares a value inside the interval a switch
+    constant's mutant moved (between the old and the new value), at any site of the
+    port's C files where the macro is one whole operand of a comparison.
+
+    Each such file, unmutated, is instrumented at those sites: ``A op MACRO`` becomes
+    ``(ad_mut_in(A), (A op MACRO))``.  None when the macro is no such operand anywhere
+    or a probe cannot be built.
+    """
+    old = parse_float_literal(m.original)[0]
+    new = parse_float_literal(m.replacement)[0]
+    lo, hi = min(old, new), max(old, new)
+    root = root_of(m)
+    hits: set[str] = set()
+    sites = 0
+    for rel in port_files(root):
+        if not rel.endswith(".c"):
+            continue
+        source = (root / rel).read_text()
+        toks = code_tokens(tokenize(source))
+        edits: list[tuple[int, int, str]] = []
+        for k, t in enumerate(toks):
+            if t.kind != "op" or t.text not in REL_SWAP:
+                continue
+            a0, b1 = operand_span(toks, k)
+            left, right = toks[a0:k], toks[k + 1:b1 + 1]
+            if len(right) == 1 and right[0].text == m.macro:
+                value = left
+            elif len(left) == 1 and left[0].text == m.macro:
+                value = right
+            else:
+                continue
+            start, end = toks[a0].start, toks[b1].start + len(toks[b1].text)
+            a = source[value[0].start:value[-1].start + len(value[-1].text)]
+            edits.append((start, end, f"(ad_mut_in((double)({a})), ({source[start:end]}))"))
+        if not edits:
+            continue
+        sites += len(edits)
+        text = source
+        for start, end, repl in sorted(edits, reverse=True):
+            text = text[:start] + repl + text[end:]
+        text = _probe_inside(lo, hi) + text
+        for cfg in b.configs:
+            if cfg not in m.configs:
+                continue
+            status, _, err = b.build_and_run(rel, text, cfg)
+            if status == "stillborn":
+                return None
+            if "AD_MUT_PROBE_INSIDE" in err:
+                hits.add(cfg)
+    if sites == 0:
+        return None
+    m.runs["probe"] = sorted(hits)
+    return sorted(hits)
+
+
 def _limit_operand(source: str, m: Mutant) -> str:
     toks = code_tokens(tokenize(source))
     idx = next((k for k, t in enumerate(toks) if t.start == m.start), None)
@@ -1068,13 +1172,28 @@ def classify(b: Builder | None, m: Mutant, source: str) -> None:
             m.reason = (f"double-double low part changed by {m.rel_size:.2e} of its high part "
                         f"(bound {tol:.2e} of {finest}): the vectors do not see the low part")
             return
+        shadow = _shadowed(m)
+        if shadow is not None:
+            m.classification = "equivalent"
+            m.reason = shadow
+            return
         if m.macro in SOLVER_START:
             m.classification = "equivalent"
             m.reason = ("start value of the supersonic Newton solver: the iteration converges "
                         f"from the perturbed start (change {m.rel_size:.2e} relative)")
             return
-        m.classification = "unclassified"
-        m.reason = f"constant changed by {m.rel_size:.2e} relative (bound {tol:.2e} of {finest})"
+        inside = probe_switch(b, m) if (b is not None and m.macro) else None
+        if inside:
+            m.classification = "equivalent"
+            m.reason = (f"switch {m.macro} moved by {m.rel_size:.2e} relative: cases compare "
+                        f"a value inside the moved interval ({', '.join(inside)}) and pass "
+                        "with the other branch; both branches agree there within the bound")
+            return
+        m.classification = "gap" if inside == [] else "unclassified"
+        m.reason = (f"switch {m.macro} moved by {m.rel_size:.2e} relative and no case "
+                    "compares a value inside the moved interval" if inside == [] else
+                    f"constant changed by {m.rel_size:.2e} relative (bound {tol:.2e} of "
+                    f"{finest})")
         return
     if m.operator == "loop" and m.macro in SOLVER_STEPS:
         m.classification = "equivalent"

@@ -551,6 +551,13 @@ def _extra_altimeter_setting(p: Profile) -> list[CaseSeed]:
         if kept == 0:
             raise RuntimeError(f"altimeter_setting: no derived-limit case for {lim} m "
                                "(every candidate elevation is outside its range)")
+    # The elevation's own range ends, at the pressure of that elevation (setting altitude
+    # 0): with a nominal pressure the derived check would refuse them first and hide a
+    # widened end (the generic range-end cases use nominal pressures).
+    for end in (dom.ELEVATION.lo, dom.ELEVATION.hi):
+        ps = _f(airdata.pressure_at_altitude(end, profile=p))
+        for v in [v for v, _ in around(end)] + window(end, RANGE_WINDOW):
+            seeds.append(CaseSeed({"ps": ps, "elevation": v}, ("range-end", "seam-window")))
     return seeds
 
 
@@ -698,6 +705,21 @@ def _stall_extra(name: str) -> Callable[[Profile], list[CaseSeed]]:
         add(("tiny",), weight=1.0e-40, wing_area=120.0, cl_max=2.4)
         add(("tiny",), weight=1.0e3, wing_area=1.0e-40, cl_max=1.0)
         add(("tiny",), weight=1.0e-36, wing_area=1000.0, cl_max=10.0)
+        # 2 n W, rho0 S CL and their quotient each in a window around the smallest normal
+        # number of binary64 and of binary32 (the switch to the factored LIM-1).
+        for lim in (2.0**-1022, 2.0**-126):
+            for v in window(lim, RANGE_WINDOW):
+                add(("tiny", "seam-window"), weight=0.5 * v, wing_area=1e-10, cl_max=1.0)
+                add(("tiny", "seam-window"), weight=1e-305 if lim < 1e-300 else 1e-36,
+                    wing_area=v / p.rho0, cl_max=1.0)
+                add(("tiny", "seam-window"), weight=0.5 * v * p.rho0, wing_area=1.0,
+                    cl_max=1.0)
+        # The positive arguments far below 1 with an ordinary stall speed (a few m/s),
+        # normal in both precisions: a lower range end raised above 0 refuses them.
+        for tiny in (1e-3, 1e-7, 1e-30):
+            add(("tiny", "range-end"), weight=tiny, wing_area=tiny, cl_max=1.0)
+            add(("tiny", "range-end"), weight=tiny, wing_area=1.0, cl_max=tiny)
+            add(("tiny", "range-end"), weight=1.0, wing_area=1.0, cl_max=1.0, load_factor=tiny)
         if name == "stall_eas":
             return seeds
         # Stall speeds swept over pressure (the altitude column of an envelope).

@@ -10,6 +10,14 @@ __all__ = ["CURRENT", "ENTRIES", "POLICY", "changelog_text", "readme_text"]
 
 #: (suite version, schema version, what changed) - newest first.
 ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
+    ("3.1.0", 1, (
+        "Minor: cases added, existing cases unchanged. The elevation's range ends of "
+        "altimeter_setting at the pressure of that elevation (the generic range-end cases "
+        "use nominal pressures, where the setting altitude check refuses them first, so a "
+        "widened 11 000 m end went unseen); the stall speeds with weight, wing area, "
+        "CLmax or load factor at 1e-3, 1e-7 and 1e-30 and an ordinary stall speed, so a "
+        "lower range end raised above 0 is caught.",
+    )),
     ("3.0.0", 1, (
         "Major: expected statuses of altimeter_setting change where the last bit of "
         "binary64 decided them. The setting's pressure altitude H(ps) - elevation is now "
