@@ -217,3 +217,37 @@ def test_cli_list_and_report(tmp_path: Path, capsys: pytest.CaptureFixture[str])
     data = json.loads(rep.read_text())
     assert data["summary"]["overall"]["total"] == 2
     assert data["note"].endswith("not certified flight software.")
+
+
+def test_a_raised_range_end_behind_a_derived_check_is_equivalent_and_a_lowered_one_not() -> None:
+    ms = mutate.all_mutants(ROOT)
+    cas_hi = [m for m in ms if m.macro == "AD_CAS_LIMIT_HI" and m.operator == "const"]
+    assert cas_hi
+    for m in cas_hi:
+        reason = mutate._shadowed(m)
+        old = mutate.parse_float_literal(m.original)[0]
+        new = mutate.parse_float_literal(m.replacement)[0]
+        # 4000 m/s raised: still above 10 a0 = 3402.9 m/s, every value beyond is refused
+        assert (reason is not None) == (new > old), m.id
+    # A made-up mutant lowering the end below 10 a0 would change results: not shadowed.
+    low = mutate.Mutant(**{**cas_hi[0].__dict__, "replacement": "0x1.9p+11"})  # 3200
+    assert mutate._shadowed(low) is None
+    # An end that no derived check shadows is never classified this way.
+    elev = next(m for m in ms if m.macro == "AD_ELEVATION_HI" and m.operator == "const")
+    assert mutate._shadowed(elev) is None
+
+
+def test_the_switch_probe_sees_cases_inside_a_moved_interval_and_none_outside(
+        tmp_path: Path) -> None:
+    _need_cc()
+    ms = mutate.all_mutants(ROOT)
+    # AD_TINY_MACH (2^-40) lowered by 5e-6 relative by the firmware rounding: the seam
+    # window puts cases at 1e-6 relative below 2^-40, inside the moved interval.
+    tiny = next(m for m in ms if m.macro == "AD_TINY_MACH" and m.detail == "firmware")
+    # The same switch moved by a made-up 1e-30 relative: no case lies that close.
+    near = mutate.Mutant(**{**tiny.__dict__,
+                            "replacement": float.hex(2.0**-40 * (1 - 2.0**-52))})
+    b = mutate.Builder(ROOT, tmp_path, mutate.compiler(), ["icao-binary64"], 60.0)
+    b.prepare(1)
+    assert mutate.probe_switch(b, tiny) == ["icao-binary64"]
+    assert mutate.probe_switch(b, near) == []
