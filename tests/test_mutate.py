@@ -251,3 +251,15 @@ def test_the_switch_probe_sees_cases_inside_a_moved_interval_and_none_outside(
     b.prepare(1)
     assert mutate.probe_switch(b, tiny) == ["icao-binary64"]
     assert mutate.probe_switch(b, near) == []
+
+
+def test_sh_of_a_gradient_layer_is_dead_data_and_of_an_isothermal_layer_not() -> None:
+    # sh = -R Tb/g0 (row entry 8) is read only in isothermal layers (altimetry.c); a
+    # row's last entry is its gradient flag: layer 0 is a gradient layer, layer 1 not.
+    ms = mutate.all_mutants(ROOT)
+    source = (ROOT / "bindings/c/src/ad_constants.h").read_text()
+    for macro, want in (("AD_LAYER_0", "equivalent"), ("AD_LAYER_1", "unclassified")):
+        m = next(m for m in ms if m.macro == macro and m.layer_index == 8 and m.detail == "d4"
+                 and m.configs == ["icao-binary64"])
+        mutate.classify(None, m, source)
+        assert m.classification == want, (macro, m.reason)

@@ -73,7 +73,9 @@ LOW_PARTS = {"AD_R_LO": "AD_R", "AD_SUTH_BETA_LO": "AD_SUTH_BETA"}
 LAYER_LOW = {11: 2, 12: 1, 13: 3}
 #: Start-value coefficients of the supersonic Newton solver (pitot.c): a perturbed start
 #: is corrected by the iteration.
-SOLVER_START = {"AD_K_S1", "AD_K_S2", "AD_K_S3", "AD_K_5_14"}
+#: AD_PHI_INF (7/7.2)^2.5 scales u_max, which only the start value uses (there is no upper
+#: clamp).
+SOLVER_START = {"AD_K_S1", "AD_K_S2", "AD_K_S3", "AD_K_5_14", "AD_PHI_INF"}
 #: Upper range ends that a derived check shadows: every value above the shadowing limit
 #: is refused by that check with the same status, OUT_OF_RANGE, so raising such an end
 #: changes no result while the end stays above that limit (checked for each mutant from
@@ -1116,6 +1118,9 @@ def _limit_operand(source: str, m: Mutant) -> str:
 #: Layer-row entries that are 0 where the layer's kind does not use them (m, k, c, n, kd,
 #: lapse_lo).
 UNUSED_ZERO = {4, 5, 6, 7, 10, 12}
+#: Layer-row entries that are not 0 in gradient layers but read only in isothermal ones
+#: (a row's last entry is its gradient flag).
+GRADIENT_UNREAD = {8: "sh = -R Tb/g0"}
 _ROOT = [Path(__file__).resolve().parents[1]]
 _REFS: dict[str, set[str]] = {}
 
@@ -1157,6 +1162,12 @@ def classify(b: Builder | None, m: Mutant, source: str) -> None:
         m.reason = ("dead data: zero entry of a layer row that this layer's kind does not "
                     "read (ad_internal.h: 'else 0')")
         return
+    if (m.operator == "const" and m.layer_index in GRADIENT_UNREAD
+            and re.search(r",\s*1\s*}\s*$", source.splitlines()[m.line - 1])):
+        m.classification = "equivalent"
+        m.reason = (f"dead data: {GRADIENT_UNREAD[m.layer_index]} of a gradient layer row, "
+                    "read only in isothermal layers (altimetry.c)")
+        return
     if m.operator == "const" and m.rel_size is not None:
         tol = min(VEC_K * EPS[p] for p in precs)
         finest = min(precs, key=lambda p: EPS[p])
@@ -1182,7 +1193,8 @@ def classify(b: Builder | None, m: Mutant, source: str) -> None:
             m.reason = ("start value of the supersonic Newton solver: the iteration converges "
                         f"from the perturbed start (change {m.rel_size:.2e} relative)")
             return
-        inside = probe_switch(b, m) if (b is not None and m.macro) else None
+        inside = (probe_switch(b, m) if b is not None else m.runs.get("probe")) \
+            if m.macro else None  # --reclassify (no builder) reuses the recorded probe
         if inside:
             m.classification = "equivalent"
             m.reason = (f"switch {m.macro} moved by {m.rel_size:.2e} relative: cases compare "
