@@ -17,7 +17,9 @@ Every public function follows one recipe:
 
 from __future__ import annotations
 
+import threading
 from dataclasses import dataclass
+from types import TracebackType
 from typing import Union
 
 import numpy as np
@@ -25,9 +27,31 @@ from numpy.typing import ArrayLike, NDArray
 
 from .status import DomainError, Status
 
-__all__ = ["Domain", "Inputs", "ArrayLike", "FloatOrArray"]
+__all__ = ["Domain", "Inputs", "ArrayLike", "FloatOrArray", "capture_statuses"]
 
 FloatOrArray = Union[float, NDArray[np.float64]]
+
+_CAPTURE = threading.local()
+
+
+class capture_statuses:  # noqa: N801 - used like a function: ``with capture_statuses()``
+    """Record the element statuses of every call finished inside the ``with`` block.
+
+    ``with capture_statuses() as log:`` yields a list that receives, for each
+    :meth:`Inputs.finish` in this thread, the status array of that call (the first
+    failing check of each element, in the order strict mode raises it).  The vector
+    builder reads every case's status from one non-strict batch call this way instead
+    of re-evaluating each bad case alone in strict mode.
+    """
+
+    def __enter__(self) -> list[NDArray[np.int8]]:
+        self._prev = getattr(_CAPTURE, "log", None)
+        _CAPTURE.log = []
+        return _CAPTURE.log  # type: ignore[no-any-return]
+
+    def __exit__(self, kind: type[BaseException] | None, exc: BaseException | None,
+                 tb: TracebackType | None) -> None:
+        _CAPTURE.log = self._prev
 
 
 @dataclass(frozen=True)
@@ -136,6 +160,9 @@ class Inputs:
 
     def finish(self, y: NDArray[np.float64]) -> FloatOrArray:
         """NaN where bad; a Python float for scalar input."""
+        log = getattr(_CAPTURE, "log", None)
+        if log is not None:
+            log.append(self.status)
         if self._any_bad:
             y = np.where(self.bad, np.nan, y)
         if self.scalar:

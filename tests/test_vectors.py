@@ -747,3 +747,29 @@ def test_port_verify_skip_subnormal_ignores_their_lines(tmp_path: Path) -> None:
     r = _cli(*base[:2], files["kept"], *base[2:])
     assert r.returncode == 1, r.stdout[-2000:]
     assert f"{len(full) - len(kept)} problem(s) in the results file" in r.stdout, r.stdout
+
+
+@pytest.mark.parametrize("spec", [s for s in CATALOGUE if s.status_of is None],
+                         ids=lambda s: s.name)
+def test_batch_statuses_equal_one_strict_call_per_case(spec: Any) -> None:
+    # The builder reads every case's status from one non-strict batch call
+    # (catalogue.evaluate); a strict call on each bad case alone, which raises the first
+    # failing check, must give the same status for every case of the suite, in both
+    # profiles (and on the binary32-rounded inputs that binary32_check evaluates).
+    from airdata.profiles import get_profile
+    from airdata.vectors import catalogue
+
+    for name in ("icao", "us1976"):
+        prof = get_profile(name)
+        _, seeds = build._dedupe(spec, build.generate_seeds(spec, prof))
+        x = {a.name: np.array([s.inputs[a.name] for s in seeds]) for a in spec.args}
+        with np.errstate(over="ignore"):
+            x32 = {k: v.astype(np.float32).astype(np.float64) for k, v in x.items()}
+        for inputs in (x, x32):
+            outs, status = catalogue.evaluate(spec, inputs, prof)
+            bad = np.zeros(status.shape, dtype=bool)
+            for v in outs.values():
+                bad |= np.isnan(v)
+            assert bad.any() and (status[bad] != 0).all() and (status[~bad] == 0).all()
+            one_by_one = catalogue._strict_statuses(spec, inputs, prof, bad)
+            assert np.array_equal(status, one_by_one), spec.name

@@ -23,7 +23,7 @@ import airdata
 
 from .. import _domains as dom
 from .. import limits as _lim
-from .._inputs import Domain
+from .._inputs import Domain, capture_statuses
 from ..chain import _NOISE, _TOTAL_PRESSURE, NOISE_BAND
 from ..pitot import RATIO_MAX, RATIO_SONIC
 from ..profiles import Profile
@@ -334,20 +334,33 @@ def evaluate(spec: FunctionSpec, x: dict[str, F64], profile: Profile
              ) -> tuple[dict[str, F64], NDArray[np.int8]]:
     """Outputs (NaN on error) and status of the reference for a batch of cases.
 
-    The outputs come from one ``strict=False`` call; the status of every case with a
-    NaN output comes from a ``strict=True`` call on that case alone (the
-    :class:`DomainError` names it), so it is the first failing check in argument order,
-    derived checks after.
+    The outputs come from one ``strict=False`` call, and so do the statuses: the
+    function's :class:`~airdata._inputs.Inputs` keeps the first failing check of each
+    element, in argument order, derived checks after, which is what a ``strict=True``
+    call on that case alone raises (``tests/test_vectors.py`` compares the two on every
+    case).  Where the call leaves no status array of the batch's shape whose errors are
+    exactly the NaN outputs, each bad case is re-evaluated alone in strict mode.
     """
     if spec.status_of is not None:
         return spec.status_of(x, profile)
     names = [a.name for a in spec.args]
-    outs = spec.call(x, profile, False)
+    with capture_statuses() as log:
+        outs = spec.call(x, profile, False)
     n = x[names[0]].shape[0]
-    status = np.zeros(n, dtype=np.int8)
     bad = np.zeros(n, dtype=bool)
     for v in outs.values():
         bad |= np.isnan(v)
+    for st in reversed(log):  # the outermost call finishes last
+        if st.shape == (n,) and np.array_equal(st != Status.OK, bad):
+            return outs, st.astype(np.int8)
+    return outs, _strict_statuses(spec, x, profile, bad)
+
+
+def _strict_statuses(spec: FunctionSpec, x: dict[str, F64], profile: Profile,
+                     bad: NDArray[np.bool_]) -> NDArray[np.int8]:
+    """The status of every ``bad`` case from a ``strict=True`` call on it alone."""
+    names = [a.name for a in spec.args]
+    status = np.zeros(bad.shape[0], dtype=np.int8)
     for i in np.flatnonzero(bad):
         try:
             spec.call({k: x[k][i] for k in names}, profile, True)
@@ -355,7 +368,7 @@ def evaluate(spec: FunctionSpec, x: dict[str, F64], profile: Profile
             status[i] = int(exc.status)
         else:  # pragma: no cover - a NaN output without an error would be a library bug
             raise RuntimeError(f"{spec.name}: NaN output without an error at case {i}")
-    return outs, status
+    return status
 
 
 # ---------------------------------------------------------------------------------
