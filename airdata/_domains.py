@@ -5,6 +5,7 @@ Ranges that depend on the constants profile are built from it; the others are fi
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from functools import cache
 
 import numpy as np
@@ -16,6 +17,8 @@ __all__ = [
     "DERIVED_SLACK", "derived_limit", "MACH_MAX", "MACH", "SPEED", "TEMPERATURE", "DELTA_T",
     "RECOVERY", "IMPACT_PRESSURE",
     "ELEVATION", "altitude", "pressure", "geometric", "setting", "setting_altitude",
+    "NOISE_BAND", "TOTAL_PRESSURE", "NOISE", "WEIGHT", "WING_AREA", "CL_MAX", "LOAD_FACTOR",
+    "CAS_LIMIT", "MACH_LIMIT", "SUBSONIC_MACH_LIMIT", "C_DOMAINS", "c_domain_id",
 ]
 
 #: Highest Mach number of every airspeed function (input or derived).
@@ -46,6 +49,33 @@ RECOVERY = Domain(0.0, 1.0, "", "nonnegative", 1.0)
 IMPACT_PRESSURE = Domain(0.0, 1.0e8, "Pa", "nonnegative", 1000.0)
 #: Station elevation (geopotential) for an altimeter setting: the troposphere.
 ELEVATION = Domain(-5000.0, 11000.0, "m", "any", 0.0)
+
+# The chain's own inputs (airdata.chain).
+#: Default half-width of the band of negative impact pressure read as zero, Pa.
+#: A choice of this project (about the resolution of a good pitot-static transducer;
+#: common practice, no source): wider readings are a fault, not noise.
+NOISE_BAND = 100.0
+#: Total pressure: positive; its range follows from ps and the Mach 10 limit.
+TOTAL_PRESSURE = Domain(0.0, 1.0e8, "Pa", "positive", 101325.0)
+#: The noise band itself.
+NOISE = Domain(0.0, 10000.0, "Pa", "nonnegative", NOISE_BAND)
+
+# The limit functions' arguments (airdata.limits).  Upper bounds are generous choices of
+# this project that catch unit slips (N vs kg, ft2 vs m2), not physical limits.
+#: Aircraft weight, N (zero and negative weights are invalid).
+WEIGHT = Domain(0.0, 1.0e7, "N", "positive", 1.0e5)
+#: Reference wing area, m2.
+WING_AREA = Domain(0.0, 2000.0, "m2", "positive", 50.0)
+#: Maximum lift coefficient (CLmax <= 0 is invalid).
+CL_MAX = Domain(0.0, 10.0, "", "positive", 1.5)
+#: Load factor n = lift/weight (n <= 0 is invalid: no stall speed).
+LOAD_FACTOR = Domain(0.0, 10.0, "", "positive", 1.0)
+#: CAS limit, m/s; CAS <= 10 a0 is checked separately.
+CAS_LIMIT = Domain(0.0, 4000.0, "m/s", "positive", 150.0)
+#: Mach limit of the maximum operating speed functions.
+MACH_LIMIT = Domain(0.0, MACH_MAX, "", "positive", 0.8)
+#: Mach limit of a subsonic crossover: (0, 1); Mach 1 itself is refused separately.
+SUBSONIC_MACH_LIMIT = Domain(0.0, 1.0, "", "positive", 0.8)
 
 
 @cache
@@ -107,3 +137,36 @@ def setting(profile: Profile) -> Domain:
     return Domain(profile.base_pressure[1] * (1.0 - DERIVED_SLACK),
                   profile.p_max * (1.0 + DERIVED_SLACK),
                   "Pa", "positive", profile.p0)
+
+
+#: Every argument domain of the C port, in the order of its ``ad_domain_id`` (the id is
+#: the index): name, and the Domain of a profile.  The one table from which the enum of
+#: airdata_batch.h, the table of domains.c, the AD_<NAME>_LO/HI constants and the ids of
+#: airdata.cport are generated or read (bindings/c/tools/generate.py).
+C_DOMAINS: tuple[tuple[str, Callable[[Profile], Domain]], ...] = (
+    ("mach", lambda p: MACH),
+    ("speed", lambda p: SPEED),
+    ("temperature", lambda p: TEMPERATURE),
+    ("delta_t", lambda p: DELTA_T),
+    ("recovery", lambda p: RECOVERY),
+    ("impact_pressure", lambda p: IMPACT_PRESSURE),
+    ("elevation", lambda p: ELEVATION),
+    ("altitude", altitude),
+    ("geometric", geometric),
+    ("pressure", pressure),
+    ("setting", setting),
+    ("total_pressure", lambda p: TOTAL_PRESSURE),
+    ("noise_band", lambda p: NOISE),
+    ("weight", lambda p: WEIGHT),
+    ("wing_area", lambda p: WING_AREA),
+    ("cl_max", lambda p: CL_MAX),
+    ("load_factor", lambda p: LOAD_FACTOR),
+    ("cas_limit", lambda p: CAS_LIMIT),
+    ("mach_limit", lambda p: MACH_LIMIT),
+    ("subsonic_mach_limit", lambda p: SUBSONIC_MACH_LIMIT),
+)
+
+
+def c_domain_id(name: str) -> int:
+    """The C port's ``ad_domain_id`` of the domain ``name`` (an entry of C_DOMAINS)."""
+    return next(i for i, (n, _) in enumerate(C_DOMAINS) if n == name)

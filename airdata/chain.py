@@ -10,7 +10,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
-from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
+from ._inputs import ArrayLike, FloatOrArray, Inputs
 from ._layers import layer_table
 from .altimetry import altitude_of_density, altitude_of_pressure, density_range
 from .pitot import RATIO_LIMIT, RATIO_MAX, mach_from_ratio
@@ -19,14 +19,12 @@ from .status import DomainError, Status
 
 __all__ = ["AirData", "air_data", "NOISE_BAND"]
 
-#: Default half-width of the band of negative impact pressure read as zero, Pa.
-#: A choice of this project (about the resolution of a good pitot-static transducer;
-#: common practice, no source): wider readings are a fault, not noise.
-NOISE_BAND = 100.0
+#: Default half-width of the band of negative impact pressure read as zero, Pa
+#: (airdata._domains.NOISE_BAND).
+NOISE_BAND = dom.NOISE_BAND
 
-#: Total pressure: positive; its range follows from ps and the Mach 10 limit.
-_TOTAL_PRESSURE = Domain(0.0, 1.0e8, "Pa", "positive", 101325.0)
-_NOISE = Domain(0.0, 10000.0, "Pa", "nonnegative", NOISE_BAND)
+_TOTAL_PRESSURE = dom.TOTAL_PRESSURE
+_NOISE = dom.NOISE
 
 
 @dataclass(frozen=True)

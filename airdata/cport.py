@@ -75,29 +75,10 @@ MODULES: dict[tuple[str, str], str] = {
     **{("us1976", prec): mod + "_us1976" for prec, (mod, _) in PRECISIONS.items()},
 }
 
-# Argument domain name -> (port's ad_domain_id, the reference's Domain of a profile).
+# Argument domain name -> (port's ad_domain_id, the reference's Domain of a profile),
+# from the one table of the port's domains.
 _DOMAINS: dict[str, tuple[int, Callable[[Profile], Domain]]] = {
-    "mach": (0, lambda p: dom.MACH),
-    "speed": (1, lambda p: dom.SPEED),
-    "temperature": (2, lambda p: dom.TEMPERATURE),
-    "delta_t": (3, lambda p: dom.DELTA_T),
-    "recovery": (4, lambda p: dom.RECOVERY),
-    "impact_pressure": (5, lambda p: dom.IMPACT_PRESSURE),
-    "elevation": (6, lambda p: dom.ELEVATION),
-    "altitude": (7, dom.altitude),
-    "geometric": (8, dom.geometric),
-    "pressure": (9, dom.pressure),
-    "setting": (10, dom.setting),
-    "total_pressure": (11, lambda p: _chain._TOTAL_PRESSURE),
-    "noise_band": (12, lambda p: _chain._NOISE),
-    "weight": (13, lambda p: _lim.WEIGHT),
-    "wing_area": (14, lambda p: _lim.WING_AREA),
-    "cl_max": (15, lambda p: _lim.CL_MAX),
-    "load_factor": (16, lambda p: _lim.LOAD_FACTOR),
-    "cas_limit": (17, lambda p: _lim.CAS_LIMIT),
-    "mach_limit": (18, lambda p: _lim.MACH_LIMIT),
-    "subsonic_mach_limit": (19, lambda p: _lim.SUBSONIC_MACH_LIMIT),
-}
+    name: (i, of) for i, (name, of) in enumerate(dom.C_DOMAINS)}
 
 _ERRORS = (int(Status.INVALID_INPUT), int(Status.OUT_OF_RANGE), int(Status.NO_CONVERGENCE))
 

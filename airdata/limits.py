@@ -73,22 +73,14 @@ __all__ = [
 
 F64 = NDArray[np.float64]
 
-# Valid ranges of the limit functions' arguments.  Upper bounds are generous choices of
-# this project that catch unit slips (N vs kg, ft2 vs m2), not physical limits.
-#: Aircraft weight, N (zero and negative weights are invalid).
-WEIGHT = Domain(0.0, 1.0e7, "N", "positive", 1.0e5)
-#: Reference wing area, m2.
-WING_AREA = Domain(0.0, 2000.0, "m2", "positive", 50.0)
-#: Maximum lift coefficient (CLmax <= 0 is invalid).
-CL_MAX = Domain(0.0, 10.0, "", "positive", 1.5)
-#: Load factor n = lift/weight (n <= 0 is invalid: no stall speed).
-LOAD_FACTOR = Domain(0.0, 10.0, "", "positive", 1.0)
-#: CAS limit, m/s; CAS <= 10 a0 is checked separately.
-CAS_LIMIT = Domain(0.0, 4000.0, "m/s", "positive", 150.0)
-#: Mach limit of the maximum operating speed functions.
-MACH_LIMIT = Domain(0.0, dom.MACH_MAX, "", "positive", 0.8)
-#: Mach limit of a subsonic crossover: (0, 1); Mach 1 itself is refused separately.
-SUBSONIC_MACH_LIMIT = Domain(0.0, 1.0, "", "positive", 0.8)
+# Valid ranges of the limit functions' arguments (defined in airdata._domains).
+WEIGHT = dom.WEIGHT
+WING_AREA = dom.WING_AREA
+CL_MAX = dom.CL_MAX
+LOAD_FACTOR = dom.LOAD_FACTOR
+CAS_LIMIT = dom.CAS_LIMIT
+MACH_LIMIT = dom.MACH_LIMIT
+SUBSONIC_MACH_LIMIT = dom.SUBSONIC_MACH_LIMIT
 
 
 #: Smallest normal binary64 number: below it a product loses relative precision.

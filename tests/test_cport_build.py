@@ -35,10 +35,59 @@ def run(cmd: list[str], cwd: Path | None = None) -> subprocess.CompletedProcess[
                           check=False)
 
 
+def _generate():  # noqa: ANN202 - module object
+    return load_script(C_DIR / "tools" / "generate.py", "generate")
+
+
 def test_generated_constants_header_is_current() -> None:
     text = _gen().render()
     current = (C_DIR / "src" / "ad_constants.h").read_text()
-    assert current == text, "run python bindings/c/tools/gen_constants.py"
+    assert current == text, "run python bindings/c/tools/generate.py"
+
+
+def test_every_generated_file_is_current_and_says_so() -> None:
+    # One staleness test over every file generated from the function and domain tables.
+    gen = _generate()
+    files = gen.outputs()
+    assert {p.name for p in files} == {"ad_constants.h", "airdata_batch.h", "batch.c",
+                                       "domains.c"}
+    for path, text in files.items():
+        assert path.read_text() == text, f"{path.name} is stale: run generate.py"
+        assert "GENERATED" in "".join(text.splitlines(True)[:5]), path.name
+    assert gen.main(["--check"]) == 0
+
+
+def test_the_generated_tables_follow_the_python_tables() -> None:
+    # The enum ids are the positions in airdata._domains.C_DOMAINS, which airdata.cport
+    # reads too; every catalogue function has one batch prototype, arguments in C order.
+    import re
+
+    from airdata import _domains, cport
+    from airdata.vectors.catalogue import CATALOGUE
+
+    header = (C_DIR / "include" / "airdata_batch.h").read_text()
+    ids = {m[1].lower(): int(m[2]) for m in re.finditer(r"AD_DOM_(\w+) = (\d+)", header)}
+    assert ids == {name: i for i, (name, _) in enumerate(_domains.C_DOMAINS)}
+    assert {k: v[0] for k, v in cport._DOMAINS.items()} == ids
+    for spec in CATALOGUE:
+        m = re.search(rf"size_t ad_{spec.name}_n\((.*?)\);", header, re.S)
+        assert m, spec.name
+        names = re.findall(r"(\w+)(?:,|$)", " ".join(m[1].split()))
+        assert names[:len(spec.args)] == [a.name for a in spec.args], spec.name
+
+
+def test_a_changed_table_changes_the_generated_files(monkeypatch: pytest.MonkeyPatch) -> None:
+    # Control: the generator reads the tables (swapping two domains renumbers the enum
+    # and reorders the rows of domains.c).
+    from airdata import _domains
+
+    gen = _generate()
+    table = list(_domains.C_DOMAINS)
+    table[0], table[1] = table[1], table[0]
+    monkeypatch.setattr(_domains, "C_DOMAINS", tuple(table))
+    files = {p.name: t for p, t in gen.outputs().items()}
+    assert "AD_DOM_SPEED = 0" in files["airdata_batch.h"]
+    assert files["domains.c"] != (C_DIR / "src" / "domains.c").read_text()
 
 
 @pytest.mark.parametrize("text", ["0.2", "1.2", "7.2", "0.15", "287.05287", "1.458e-6",

@@ -164,6 +164,11 @@ class FunctionSpec:
     nominal_sets: Callable[[Profile], list[dict[str, float]]] | None = None
     status_of: Callable[[dict[str, F64], Profile], tuple[dict[str, F64], NDArray[np.int8]]] | None \
         = field(default=None)
+    #: Arguments that the batch entry point ``ad_<name>_n`` takes once per call (flags
+    #: and settings of the whole batch) instead of one value per element.
+    batch_per_call: tuple[str, ...] = ()
+    #: (array argument, flag argument): the array may be NULL while the flag is 0.
+    batch_optional: tuple[tuple[str, str], ...] = ()
 
     @property
     def c_name(self) -> str:
@@ -935,7 +940,9 @@ def _mk_catalogue() -> tuple[FunctionSpec, ...]:
                      tuple((k, u) for k, u in zip(_CHAIN_OUT, (
                          "m", "m", "Pa", "1", "m/s", "m/s", "m/s", "K", "kg/m3", "m", "Pa"),
                          strict=True)),
-                     lambda x, p, s_: {}, (), _extra_chain, _chain_nominals, _chain_status),
+                     lambda x, p, s_: {}, (), _extra_chain, _chain_nominals, _chain_status,
+                     batch_per_call=("use_setting", "noise_band"),
+                     batch_optional=(("setting", "use_setting"),)),
         FunctionSpec("stall_eas", ("LIM-1",),
                      "Stall equivalent airspeed from lift = load_factor x weight",
                      (A["weight"], A["wing_area"], A["cl_max"], A["load_factor"]),

@@ -223,22 +223,16 @@ def binary64(profile) -> dict[str, object]:  # noqa: ANN001
 
 
 def domains(profile, single: bool, ex: dict[str, object]) -> list[tuple[str, float, float]]:  # noqa: ANN001
-    """Range ends of airdata._domains (and of the chain's and limits' own inputs)."""
+    """Range ends of every domain of airdata._domains.C_DOMAINS: the fixed ones first, then
+    those of the profile (binary32: from the exact decimal values), each in id order."""
     dom = _mod("airdata._domains")
-    chain = _mod("airdata.chain")
-    fixed = {"MACH": dom.MACH, "SPEED": dom.SPEED, "TEMPERATURE": dom.TEMPERATURE,
-             "DELTA_T": dom.DELTA_T, "RECOVERY": dom.RECOVERY,
-             "IMPACT_PRESSURE": dom.IMPACT_PRESSURE, "ELEVATION": dom.ELEVATION,
-             "TOTAL_PRESSURE": chain._TOTAL_PRESSURE, "NOISE_BAND": chain._NOISE}
-    lim = _mod("airdata.limits")
-    fixed.update({"WEIGHT": lim.WEIGHT, "WING_AREA": lim.WING_AREA, "CL_MAX": lim.CL_MAX,
-                  "LOAD_FACTOR": lim.LOAD_FACTOR, "CAS_LIMIT": lim.CAS_LIMIT,
-                  "MACH_LIMIT": lim.MACH_LIMIT,
-                  "SUBSONIC_MACH_LIMIT": lim.SUBSONIC_MACH_LIMIT})
+    special = {"altitude", "geometric", "pressure", "setting"}
     out = []
-    for name, dm in fixed.items():
-        lo, hi = (f32(repr(dm.lo)), f32(repr(dm.hi))) if single else (dm.lo, dm.hi)
-        out.append((name, lo, hi))
+    for name, of in dom.C_DOMAINS:
+        if name not in special:
+            dm = of(profile)
+            lo, hi = (f32(repr(dm.lo)), f32(repr(dm.hi))) if single else (dm.lo, dm.hi)
+            out.append((name.upper(), lo, hi))
     alt, geo = dom.altitude(profile), dom.geometric(profile)
     prs, sett = dom.pressure(profile), dom.setting(profile)
     if single:
