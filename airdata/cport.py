@@ -28,6 +28,7 @@ An engineering and verification aid, not certified flight software.
 from __future__ import annotations
 
 import importlib
+import inspect
 from collections.abc import Callable
 from functools import cache
 from types import ModuleType
@@ -37,17 +38,10 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
-from . import altimetry as _alt
 from . import chain as _chain
-from . import limits as _lim
-from . import pitot as _pit
-from . import speeds as _spd
-from . import temperature as _tmp
 from ._inputs import ArrayLike, Domain, FloatOrArray
 from .atmosphere import Atmosphere
 from .atmosphere import atmosphere as _ref_atmosphere
-from .atmosphere import geometric_altitude as _ref_geometric
-from .atmosphere import geopotential_altitude as _ref_geopotential
 from .chain import AirData
 from .profiles import ICAO, Profile, get_profile
 from .status import DomainError, Status
@@ -230,180 +224,83 @@ def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | No
     return Atmosphere(*cols, profile=prof.name)
 
 
-def geopotential_altitude(z: ArrayLike, *, profile: Profile | str | None = None,
-                          strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.geopotential_altitude` (ATM-7); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("geopotential_altitude", lambda *a: _ref_geopotential(*a, profile=prof),
-                   strict, precision, {"z": (z, "geometric")}, prof=prof)
+# Every one-output function: the reference's own signature plus ``precision``, built from
+# the function table (argument names in C order and their domains).
 
 
-def geometric_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
-                       strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.geometric_altitude` (ATM-8); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("geometric_altitude", lambda *a: _ref_geometric(*a, profile=prof),
-                   strict, precision, {"h": (h, "altitude")}, prof=prof)
+def _port_function(name: str) -> Callable[..., FloatOrArray]:
+    """The port of the reference function ``name`` of one output, with that function's
+    signature plus the keyword ``precision``, through its batch entry point.
+
+    The function is compiled from a few lines of source so that it has the reference's
+    parameters, defaults and speed (no argument binding at run time).
+    """
+    import airdata
+
+    from .vectors.catalogue import get_spec
+
+    ref = getattr(airdata, name)
+    spec = get_spec(name)
+    sig = inspect.signature(ref)
+    params = []
+    star = False
+    for p in sig.parameters.values():
+        if p.kind is inspect.Parameter.KEYWORD_ONLY and not star:
+            params.append("*")
+            star = True
+        params.append(p.name if p.default is inspect.Parameter.empty
+                      else f"{p.name}={p.default!r}")
+    if not star:
+        params.append("*")
+    named = ", ".join(f"{a.name!r}: ({a.name}, {a.domain_name!r})" for a in spec.args)
+    with_profile = "profile" in sig.parameters
+    body = (f"    prof = _check_profile(profile)\n"
+            f"    return _simple({name!r}, lambda *a: _ref(*a, profile=prof), strict, "
+            f"precision, {{{named}}}, prof=prof)\n" if with_profile else
+            f"    return _simple({name!r}, _ref, strict, precision, {{{named}}})\n")
+    source = f"def {name}({', '.join(params)}, precision='double'):\n{body}"
+    scope: dict[str, Any] = {"_check_profile": _check_profile, "_simple": _simple,
+                             "_ref": ref}
+    exec(compile(source, f"<airdata.cport.{name}>", "exec"), scope)  # noqa: S102
+    fn: Callable[..., FloatOrArray] = scope[name]
+    fn.__module__ = __name__
+    fn.__doc__ = (f"Port of :func:`airdata.{name}` ({', '.join(spec.equations)}); "
+                  "``precision``: ``\"double\"`` or ``\"single\"``, the build to run.")
+    fn.__signature__ = sig.replace(parameters=[  # type: ignore[attr-defined]
+        *sig.parameters.values(),
+        inspect.Parameter("precision", inspect.Parameter.KEYWORD_ONLY, default="double",
+                          annotation="str")])
+    return fn
 
 
-def pressure_altitude(ps: ArrayLike, *, profile: Profile | str | None = None,
-                      strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.pressure_altitude` (ALT-1); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("pressure_altitude", lambda *a: _alt.pressure_altitude(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure")}, prof=prof)
-
-
-def pressure_at_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
-                         strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.pressure_at_altitude` (ATM-3); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("pressure_at_altitude",
-                   lambda *a: _alt.pressure_at_altitude(*a, profile=prof),
-                   strict, precision, {"h": (h, "altitude")}, prof=prof)
-
-
-def baro_corrected_altitude(ps: ArrayLike, setting: ArrayLike, *,
-                            profile: Profile | str | None = None, strict: bool = True,
-                            precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.baro_corrected_altitude` (ALT-2); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("baro_corrected_altitude",
-                   lambda *a: _alt.baro_corrected_altitude(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure"), "setting": (setting, "setting")},
-                   prof=prof)
-
-
-def altimeter_setting(ps: ArrayLike, elevation: ArrayLike, *,
-                      profile: Profile | str | None = None, strict: bool = True,
-                      precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.altimeter_setting` (ALT-3); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("altimeter_setting", lambda *a: _alt.altimeter_setting(*a, profile=prof),
-                   strict, precision,
-                   {"ps": (ps, "setting"), "elevation": (elevation, "elevation")}, prof=prof)
-
-
-def density_altitude(ps: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
-                     strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.density_altitude` (ALT-4); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("density_altitude", lambda *a: _alt.density_altitude(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure"), "sat": (sat, "temperature")},
-                   prof=prof)
-
-
-def impact_pressure_from_mach(mach: ArrayLike, ps: ArrayLike, *,
-                              profile: Profile | str | None = None, strict: bool = True,
-                              precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.impact_pressure_from_mach` (PIT-1); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("impact_pressure_from_mach",
-                   lambda *a: _pit.impact_pressure_from_mach(*a, profile=prof),
-                   strict, precision, {"mach": (mach, "mach"), "ps": (ps, "pressure")}, prof=prof)
-
-
-def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *,
-                              profile: Profile | str | None = None, strict: bool = True,
-                              precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.mach_from_impact_pressure` (PIT-2); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("mach_from_impact_pressure",
-                   lambda *a: _pit.mach_from_impact_pressure(*a, profile=prof),
-                   strict, precision, {"qc": (qc, "impact_pressure"), "ps": (ps, "pressure")},
-                   prof=prof)
-
-
-def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = None,
-                             strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.impact_pressure_from_cas` (PIT-3); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("impact_pressure_from_cas",
-                   lambda *a: _pit.impact_pressure_from_cas(*a, profile=prof),
-                   strict, precision, {"cas": (cas, "speed")}, prof=prof)
-
-
-def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = None,
-                             strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.cas_from_impact_pressure` (PIT-4); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("cas_from_impact_pressure",
-                   lambda *a: _pit.cas_from_impact_pressure(*a, profile=prof),
-                   strict, precision, {"qc": (qc, "impact_pressure")}, prof=prof)
-
-
-def _speed2(cname: str, first: str, dfirst: str, second: str, dsecond: str,
-            a: ArrayLike, b: ArrayLike, profile: Profile | str | None, strict: bool,
-            precision: str) -> FloatOrArray:
-    prof = _check_profile(profile)
-    ref = getattr(_spd, cname)
-    return _simple(cname, lambda *x: ref(*x, profile=prof), strict, precision,
-                   {first: (a, dfirst), second: (b, dsecond)}, prof=prof)
-
-
-def cas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-                  strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.cas_from_mach` (SPD-1); ``precision`` as above."""
-    return _speed2("cas_from_mach", "mach", "mach", "ps", "pressure", mach, ps, profile,
-                   strict, precision)
-
-
-def mach_from_cas(cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-                  strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.mach_from_cas` (SPD-1 inverted); ``precision`` as above."""
-    return _speed2("mach_from_cas", "cas", "speed", "ps", "pressure", cas, ps, profile,
-                   strict, precision)
-
-
-def eas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-                  strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.eas_from_mach` (SPD-2); ``precision`` as above."""
-    return _speed2("eas_from_mach", "mach", "mach", "ps", "pressure", mach, ps, profile,
-                   strict, precision)
-
-
-def mach_from_eas(eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-                  strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.mach_from_eas` (SPD-2 inverted); ``precision`` as above."""
-    return _speed2("mach_from_eas", "eas", "speed", "ps", "pressure", eas, ps, profile,
-                   strict, precision)
-
-
-def tas_from_mach(mach: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
-                  strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.tas_from_mach` (SPD-3); ``precision`` as above."""
-    return _speed2("tas_from_mach", "mach", "mach", "sat", "temperature", mach, sat, profile,
-                   strict, precision)
-
-
-def mach_from_tas(tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
-                  strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.mach_from_tas` (SPD-3 inverted); ``precision`` as above."""
-    return _speed2("mach_from_tas", "tas", "speed", "sat", "temperature", tas, sat, profile,
-                   strict, precision)
-
-
-def dynamic_pressure(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-                     strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.dynamic_pressure` (SPD-4); ``precision`` as above."""
-    return _speed2("dynamic_pressure", "mach", "mach", "ps", "pressure", mach, ps, profile,
-                   strict, precision)
-
-
-def sat_from_tat(tat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
-                 strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.sat_from_tat` (TMP-1); ``precision`` as above."""
-    return _simple("sat_from_tat", _tmp.sat_from_tat, strict, precision,
-                   {"tat": (tat, "temperature"), "mach": (mach, "mach"),
-                    "recovery": (recovery, "recovery")})
-
-
-def tat_from_sat(sat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
-                 strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.tat_from_sat` (TMP-1); ``precision`` as above."""
-    return _simple("tat_from_sat", _tmp.tat_from_sat, strict, precision,
-                   {"sat": (sat, "temperature"), "mach": (mach, "mach"),
-                    "recovery": (recovery, "recovery")})
+geopotential_altitude = _port_function("geopotential_altitude")
+geometric_altitude = _port_function("geometric_altitude")
+pressure_altitude = _port_function("pressure_altitude")
+pressure_at_altitude = _port_function("pressure_at_altitude")
+baro_corrected_altitude = _port_function("baro_corrected_altitude")
+altimeter_setting = _port_function("altimeter_setting")
+density_altitude = _port_function("density_altitude")
+impact_pressure_from_mach = _port_function("impact_pressure_from_mach")
+mach_from_impact_pressure = _port_function("mach_from_impact_pressure")
+impact_pressure_from_cas = _port_function("impact_pressure_from_cas")
+cas_from_impact_pressure = _port_function("cas_from_impact_pressure")
+cas_from_mach = _port_function("cas_from_mach")
+mach_from_cas = _port_function("mach_from_cas")
+eas_from_mach = _port_function("eas_from_mach")
+mach_from_eas = _port_function("mach_from_eas")
+tas_from_mach = _port_function("tas_from_mach")
+mach_from_tas = _port_function("mach_from_tas")
+dynamic_pressure = _port_function("dynamic_pressure")
+sat_from_tat = _port_function("sat_from_tat")
+tat_from_sat = _port_function("tat_from_sat")
+stall_eas = _port_function("stall_eas")
+stall_mach = _port_function("stall_mach")
+stall_cas = _port_function("stall_cas")
+stall_tas = _port_function("stall_tas")
+crossover_altitude = _port_function("crossover_altitude")
+max_operating_cas = _port_function("max_operating_cas")
+max_operating_mach = _port_function("max_operating_mach")
+ceiling_margin = _port_function("ceiling_margin")
 
 
 _AIR_FIELDS = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", "cas", "eas",
@@ -460,100 +357,3 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     status = b.status.astype(np.int8)
     return AirData(**cols, status=int(status[0]) if b.scalar else status.reshape(b.shape),
                    profile=prof.name)
-
-
-# ------------------------------------------------------------------ limits (LIM-1 .. LIM-5)
-
-
-def _wing(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike
-          ) -> dict[str, tuple[ArrayLike, str]]:
-    return {"weight": (weight, "weight"), "wing_area": (wing_area, "wing_area"),
-            "cl_max": (cl_max, "cl_max")}
-
-
-def stall_eas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike,
-              load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
-              strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.stall_eas` (LIM-1); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("stall_eas", lambda *a: _lim.stall_eas(*a, profile=prof), strict,
-                   precision, {**_wing(weight, wing_area, cl_max),
-                               "load_factor": (load_factor, "load_factor")}, prof=prof)
-
-
-def stall_mach(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
-               load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
-               strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.stall_mach` (LIM-2); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("stall_mach", lambda *a: _lim.stall_mach(*a, profile=prof), strict,
-                   precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
-                               "load_factor": (load_factor, "load_factor")}, prof=prof)
-
-
-def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
-              load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
-              strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.stall_cas` (LIM-2); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("stall_cas", lambda *a: _lim.stall_cas(*a, profile=prof), strict,
-                   precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
-                               "load_factor": (load_factor, "load_factor")}, prof=prof)
-
-
-def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
-              sat: ArrayLike, load_factor: ArrayLike = 1.0, *,
-              profile: Profile | str | None = None, strict: bool = True,
-              precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.stall_tas` (LIM-2); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("stall_tas", lambda *a: _lim.stall_tas(*a, profile=prof), strict,
-                   precision, {**_wing(weight, wing_area, cl_max), "ps": (ps, "pressure"),
-                               "sat": (sat, "temperature"),
-                               "load_factor": (load_factor, "load_factor")}, prof=prof)
-
-
-def crossover_altitude(cas_limit: ArrayLike, mach_limit: ArrayLike, *,
-                       profile: Profile | str | None = None, strict: bool = True,
-                       precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.crossover_altitude` (LIM-3); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("crossover_altitude",
-                   lambda *a: _lim.crossover_altitude(*a, profile=prof), strict, precision,
-                   {"cas_limit": (cas_limit, "cas_limit"),
-                    "mach_limit": (mach_limit, "subsonic_mach_limit")}, prof=prof)
-
-
-def _max_operating(cname: str, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike,
-                   profile: Profile | str | None, strict: bool,
-                   precision: str) -> FloatOrArray:
-    prof = _check_profile(profile)
-    ref = getattr(_lim, cname)
-    return _simple(cname, lambda *a: ref(*a, profile=prof), strict, precision,
-                   {"ps": (ps, "pressure"), "cas_limit": (cas_limit, "cas_limit"),
-                    "mach_limit": (mach_limit, "mach_limit")}, prof=prof)
-
-
-def max_operating_cas(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
-                      profile: Profile | str | None = None, strict: bool = True,
-                      precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.max_operating_cas` (LIM-4); ``precision`` as above."""
-    return _max_operating("max_operating_cas", ps, cas_limit, mach_limit, profile, strict,
-                          precision)
-
-
-def max_operating_mach(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
-                       profile: Profile | str | None = None, strict: bool = True,
-                       precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.max_operating_mach` (LIM-4); ``precision`` as above."""
-    return _max_operating("max_operating_mach", ps, cas_limit, mach_limit, profile, strict,
-                          precision)
-
-
-def ceiling_margin(ps: ArrayLike, ceiling: ArrayLike, *, profile: Profile | str | None = None,
-                   strict: bool = True, precision: str = "double") -> FloatOrArray:
-    """Port of :func:`airdata.ceiling_margin` (LIM-5); ``precision`` as above."""
-    prof = _check_profile(profile)
-    return _simple("ceiling_margin", lambda *a: _lim.ceiling_margin(*a, profile=prof),
-                   strict, precision, {"ps": (ps, "pressure"), "ceiling": (ceiling, "altitude")},
-                   prof=prof)

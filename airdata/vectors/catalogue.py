@@ -22,9 +22,8 @@ from numpy.typing import NDArray
 import airdata
 
 from .. import _domains as dom
-from .. import limits as _lim
 from .._inputs import Domain, capture_statuses
-from ..chain import _NOISE, _TOTAL_PRESSURE, NOISE_BAND
+from ..chain import NOISE_BAND
 from ..pitot import RATIO_MAX, RATIO_SONIC
 from ..profiles import Profile
 from ..status import DomainError, Status
@@ -119,8 +118,10 @@ class Arg:
         Parameter name (Python and C).
     unit : str
         SI unit, ``"1"`` for dimensionless, ``""`` for a flag.
-    domain : callable
-        Profile -> :class:`Domain` (``None`` for an integer flag).
+    domain_name : str or None
+        The argument's domain: a name of ``airdata._domains.C_DOMAINS``, which also gives
+        the C port's ``ad_domain_id`` (``None`` for an integer flag).  :attr:`domain`
+        is its Profile -> :class:`Domain`.
     sweep : tuple
         ``(kind, lo, hi)`` of the dense sweep; ``kind`` is ``"lin"``, ``"log"`` or
         ``"mach"`` (denser below 1); ``lo``/``hi`` ``None`` means the domain end.
@@ -134,11 +135,18 @@ class Arg:
 
     name: str
     unit: str
-    domain: Callable[[Profile], Domain] | None
+    domain_name: str | None
     sweep: tuple[str, float | None, float | None] = ("lin", None, None)
     nominal: Callable[[Profile], list[float]] = lambda p: []
     seams: Callable[[Profile], list[tuple[float, str]]] = lambda p: []
     kind: str = "real"
+
+    @property
+    def domain(self) -> Callable[[Profile], Domain] | None:
+        """Profile -> :class:`Domain` of the argument (``None`` for a flag)."""
+        if self.domain_name is None:
+            return None
+        return dict(dom.C_DOMAINS)[self.domain_name]
 
 
 @dataclass(frozen=True)
@@ -211,60 +219,60 @@ def _nominal_p(p: Profile) -> list[float]:
 
 def _mk_args() -> dict[str, Arg]:
     a: dict[str, Arg] = {}
-    a["h"] = Arg("h", "m", dom.altitude, ("lin", None, None),
+    a["h"] = Arg("h", "m", "altitude", ("lin", None, None),
                  lambda p: [0.0, 3000.0, 15000.0, 60000.0], _alt_seams)
-    a["dT"] = Arg("dT", "K", lambda p: dom.DELTA_T, ("lin", None, None),
+    a["dT"] = Arg("dT", "K", "delta_t", ("lin", None, None),
                   lambda p: [0.0, -30.0, 25.0])
-    a["z"] = Arg("z", "m", dom.geometric, ("lin", None, None), lambda p: [0.0], _z_seams)
-    a["ps"] = Arg("ps", "Pa", dom.pressure, ("log", None, None), _nominal_p, _p_seams)
-    a["ps_trop"] = Arg("ps", "Pa", dom.setting, ("log", None, None),
+    a["z"] = Arg("z", "m", "geometric", ("lin", None, None), lambda p: [0.0], _z_seams)
+    a["ps"] = Arg("ps", "Pa", "pressure", ("log", None, None), _nominal_p, _p_seams)
+    a["ps_trop"] = Arg("ps", "Pa", "setting", ("log", None, None),
                        lambda p: [p.p0, 84307.0, 60000.0], _p_seams)
-    a["setting"] = Arg("setting", "Pa", dom.setting, ("lin", None, None),
+    a["setting"] = Arg("setting", "Pa", "setting", ("lin", None, None),
                        lambda p: [p.p0, 98000.0, 104000.0], _p_seams)
-    a["elevation"] = Arg("elevation", "m", lambda p: dom.ELEVATION, ("lin", None, None),
+    a["elevation"] = Arg("elevation", "m", "elevation", ("lin", None, None),
                          lambda p: [0.0, 1500.0, -300.0],
                          lambda p: [(0.0, "layer-base"), (11000.0, "layer-base")])
-    a["sat"] = Arg("sat", "K", lambda p: dom.TEMPERATURE, ("lin", 150.0, 400.0),
+    a["sat"] = Arg("sat", "K", "temperature", ("lin", 150.0, 400.0),
                    lambda p: [288.15, 216.65, 250.0])
-    a["tat"] = Arg("tat", "K", lambda p: dom.TEMPERATURE, ("lin", 150.0, 600.0),
+    a["tat"] = Arg("tat", "K", "temperature", ("lin", 150.0, 600.0),
                    lambda p: [288.15, 250.0, 320.0])
-    a["mach"] = Arg("mach", "1", lambda p: dom.MACH, ("mach", None, None),
+    a["mach"] = Arg("mach", "1", "mach", ("mach", None, None),
                     lambda p: [0.3, 0.85, 2.0], _mach_seams)
-    a["recovery"] = Arg("recovery", "1", lambda p: dom.RECOVERY, ("lin", None, None),
+    a["recovery"] = Arg("recovery", "1", "recovery", ("lin", None, None),
                         lambda p: [1.0, 0.98, 0.75])
-    a["cas"] = Arg("cas", "m/s", lambda p: dom.SPEED, ("lin", 0.0, 3400.0),
+    a["cas"] = Arg("cas", "m/s", "speed", ("lin", 0.0, 3400.0),
                    lambda p: [60.0, 150.0, 250.0], _cas_seams)
-    a["eas"] = Arg("eas", "m/s", lambda p: dom.SPEED, ("lin", 0.0, 1200.0),
+    a["eas"] = Arg("eas", "m/s", "speed", ("lin", 0.0, 1200.0),
                    lambda p: [60.0, 150.0, 250.0])
-    a["tas"] = Arg("tas", "m/s", lambda p: dom.SPEED, ("lin", 0.0, 4000.0),
+    a["tas"] = Arg("tas", "m/s", "speed", ("lin", 0.0, 4000.0),
                    lambda p: [60.0, 230.0, 600.0])
-    a["qc"] = Arg("qc", "Pa", lambda p: dom.IMPACT_PRESSURE, ("log", 1.0e-3, 1.0e7),
+    a["qc"] = Arg("qc", "Pa", "impact_pressure", ("log", 1.0e-3, 1.0e7),
                   lambda p: [3000.0, 20000.0, 150.0])
-    a["qc_cas"] = Arg("qc", "Pa", lambda p: dom.IMPACT_PRESSURE, ("log", 1.0e-3, 1.2e7),
+    a["qc_cas"] = Arg("qc", "Pa", "impact_pressure", ("log", 1.0e-3, 1.2e7),
                       lambda p: [3000.0, 20000.0, 150.0],
                       lambda p: [(RATIO_SONIC * p.p0, "sonic")])
-    a["pt"] = Arg("pt", "Pa", lambda p: _TOTAL_PRESSURE, ("log", None, None),
+    a["pt"] = Arg("pt", "Pa", "total_pressure", ("log", None, None),
                   lambda p: [p.p0 + 3000.0])
-    a["noise_band"] = Arg("noise_band", "Pa", lambda p: _NOISE, ("lin", None, None),
+    a["noise_band"] = Arg("noise_band", "Pa", "noise_band", ("lin", None, None),
                           lambda p: [NOISE_BAND])
     a["use_setting"] = Arg("use_setting", "", None, kind="flag")
     # The limit functions (airdata/limits.py).
-    a["weight"] = Arg("weight", "N", lambda p: _lim.WEIGHT, ("log", 1.0e3, 1.0e7),
+    a["weight"] = Arg("weight", "N", "weight", ("log", 1.0e3, 1.0e7),
                       lambda p: [6.0e5, 2.0e4, 3.0e6])
-    a["wing_area"] = Arg("wing_area", "m2", lambda p: _lim.WING_AREA, ("log", 5.0, 2000.0),
+    a["wing_area"] = Arg("wing_area", "m2", "wing_area", ("log", 5.0, 2000.0),
                          lambda p: [120.0, 15.0, 400.0])
-    a["cl_max"] = Arg("cl_max", "1", lambda p: _lim.CL_MAX, ("lin", 0.5, 10.0),
+    a["cl_max"] = Arg("cl_max", "1", "cl_max", ("lin", 0.5, 10.0),
                       lambda p: [2.4, 1.4, 3.0])
-    a["load_factor"] = Arg("load_factor", "1", lambda p: _lim.LOAD_FACTOR, ("lin", 0.5, 10.0),
+    a["load_factor"] = Arg("load_factor", "1", "load_factor", ("lin", 0.5, 10.0),
                            lambda p: [1.0, 1.5, 2.5])
-    a["cas_limit"] = Arg("cas_limit", "m/s", lambda p: _lim.CAS_LIMIT, ("lin", 40.0, 700.0),
+    a["cas_limit"] = Arg("cas_limit", "m/s", "cas_limit", ("lin", 40.0, 700.0),
                          lambda p: [175.0, 130.0, 250.0], _cas_seams)
-    a["mach_limit"] = Arg("mach_limit", "1", lambda p: _lim.MACH_LIMIT, ("lin", 0.2, 4.0),
+    a["mach_limit"] = Arg("mach_limit", "1", "mach_limit", ("lin", 0.2, 4.0),
                           lambda p: [0.82, 0.6, 2.0], _mach_seams)
-    a["subsonic_mach_limit"] = Arg("mach_limit", "1", lambda p: _lim.SUBSONIC_MACH_LIMIT,
+    a["subsonic_mach_limit"] = Arg("mach_limit", "1", "subsonic_mach_limit",
                                    ("lin", 0.3, 0.99), lambda p: [0.82, 0.6, 0.9],
                                    lambda p: [(1.0, "sonic")])
-    a["ceiling"] = Arg("ceiling", "m", dom.altitude, ("lin", None, None),
+    a["ceiling"] = Arg("ceiling", "m", "altitude", ("lin", None, None),
                        lambda p: [12500.0, 4000.0, 20000.0], _alt_seams)
     return a
 
@@ -310,13 +318,13 @@ def _chain_status(x: dict[str, F64], profile: Profile) -> tuple[dict[str, F64], 
     status = np.zeros(n, dtype=np.int8)
     use = x["use_setting"] != 0
     nb = x["noise_band"]
-    nb_status = _NOISE.classify(nb)
+    nb_status = dom.NOISE.classify(nb)
     keys = sorted({(bool(u), float(b).hex()) for u, b in zip(use, nb, strict=True)})
     for u, bhex in keys:
         b = float.fromhex(bhex)
         sel = (use == u) & np.array([float(v).hex() == bhex for v in nb])
         named = {"ps": (x["ps"][sel], dom.pressure(profile)),
-                 "pt": (x["pt"][sel], _TOTAL_PRESSURE),
+                 "pt": (x["pt"][sel], dom.TOTAL_PRESSURE),
                  "tat": (x["tat"][sel], dom.TEMPERATURE),
                  "recovery": (x["recovery"][sel], dom.RECOVERY)}
         if u:
