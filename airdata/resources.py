@@ -48,7 +48,7 @@ SHARED_FILES: tuple[tuple[str, tuple[str, ...]], ...] = (
     ("bindings/c", ("Makefile",)),
     ("bindings/c/include", ("*.h",)),
     ("bindings/c/src", ("*.c", "*.h")),
-    ("bindings/c/runner", ("*.c",)),
+    ("bindings/c/runner", ("*.c", "*.h")),
     ("bindings/c/tests", ("driver.c",)),
     ("docs", ("equations.md",)),
 )

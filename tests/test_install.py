@@ -197,7 +197,8 @@ def test_installed_copies_build_and_run_the_runner(venv: Path, empty: Path) -> N
     r = _run(venv, empty, "port", "copy", str(port))
     assert r.returncode == 0, r.stderr
     for rel in ("Makefile", "include/airdata.h", "include/airdata_batch.h", "src/pitot.c",
-                "runner/ad_vector_runner.c", "tests/driver.c"):
+                "runner/ad_vector_runner.c", "runner/ad_runner_functions.h",
+                "tests/driver.c"):
         assert (port / rel).is_file(), rel
     # A second copy refuses, names a file it would overwrite, and writes nothing.
     (port / "src" / "pitot.c").write_text("/* edited by the team */\n")

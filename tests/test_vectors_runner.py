@@ -42,10 +42,12 @@ def _summary(out: str) -> dict[str, tuple[int, int]]:
 
 
 def test_runner_calls_every_catalogue_function() -> None:
-    text = RUNNER.read_text()
+    # The hand-written core and its generated per-function part (generate.py).
+    text = RUNNER.read_text() + (RUNNER.parent / "ad_runner_functions.h").read_text()
+    assert '#include "ad_runner_functions.h"' in RUNNER.read_text()
     for spec in CATALOGUE:
-        assert f"static void run_{spec.name}(tally_t *t)" in text
-        assert f"    run_{spec.name}(&t);" in text
+        assert text.count(f"static void run_{spec.name}(tally_t *t)\n{{") == 1
+        assert f"    run_{spec.name}(t);" in text
         assert f"st = {spec.c_name}(" in text
     assert "malloc" not in text and "fopen" not in text
 

@@ -20,7 +20,9 @@ when one is stale):
 - ``src/ad_constants.h``: the constants (``gen_constants.py``);
 - ``include/airdata_batch.h``: the domain ids and every batch prototype;
 - ``src/batch.c``: every batch entry point, a loop over the scalar function;
-- ``src/domains.c``: the table of domains behind ``ad_i_check`` and ``ad_check_n``.
+- ``src/domains.c``: the table of domains behind ``ad_i_check`` and ``ad_check_n``;
+- ``runner/ad_runner_functions.h``: the per-function part of the vector runner (which
+  functions are built, the routines of every one-output function, the loop over all).
 """
 
 from __future__ import annotations
@@ -318,6 +320,120 @@ def render_domains_c(domains: ModuleType) -> str:
     ])
 
 
+# --------------------------------------------------------------- the vector runner
+
+
+def _runner_routines(spec: Any) -> str:
+    """run_<name> and null_<name> of a one-output function (the vector runner)."""
+    n, k = spec.name, len(spec.args)
+    up = n.upper()
+    xs = [f"x{j}" for j in range(k)]
+    lines = [
+        f"static void run_{n}(tally_t *t)",
+        "{",
+        "    ad_real out[1];",
+        "    ad_real out_n[1];",
+        "    unsigned char st_n[1];",
+        "    size_t bad;",
+        "    ad_status st;",
+        "    int i;",
+        f"    for (i = 0; i < AD_VEC_{up}_COUNT; ++i) {{",
+        f"        const ad_vec_{n}_case *c = &ad_vec_{n}_cases[i];",
+        *[f"        const ad_real {x} = (ad_real)c->in[{j}];" for j, x in enumerate(xs)],
+        "        out[0] = 0;",
+        "        fill(out_n, sizeof out_n, 0x5aU);",
+        f"        st = ad_{n}({', '.join(xs)}, &out[0]);",
+        "#if RUNNER_BATCH",
+        "        st_n[0] = 0xffU;",
+        f"        bad = ad_{n}_n({', '.join('&' + x for x in xs)}, out_n, st_n, 1U);",
+        "#else",
+        "        out_n[0] = out[0];",
+        "        st_n[0] = (unsigned char)st;",
+        "        bad = is_error(st);",
+        "#endif",
+        "        check_case(t, c->id, st, c->status, c->binary32_check, out, c->expected,",
+        f"                   c->scale, AD_VEC_{up}_NOUT,",
+        f"                   batch_same(st, st_n[0], bad, out, out_n, AD_VEC_{up}_NOUT));",
+        "    }",
+        "}",
+        "",
+        f"static void null_{n}(tally_t *t)",
+        "{",
+        "    const ad_real a = (ad_real)1;",
+        "    int bad = 0;",
+        f"    bad += (ad_{n}({', '.join(['a'] * k)}, NULL) != AD_INVALID_INPUT);",
+        "#if RUNNER_BATCH",
+        "    {",
+        "        ad_real y = (ad_real)7;",
+        "        ad_real y0;",
+        "        unsigned char s = 0xa5U;",
+        "        y0 = y;",
+    ]
+    pointers = ["&a"] * k + ["&y", "&s"]
+    for j in range(len(pointers)):
+        args = pointers[:j] + ["NULL"] + pointers[j + 1:]
+        lines.append(f"        bad += (ad_{n}_n({', '.join(args)}, 1U) != AD_BATCH_NULL);")
+    lines += [
+        "        bad += (memcmp(&y, &y0, sizeof y) != 0) || (s != 0xa5U);",
+        "    }",
+        "#endif",
+        '    contract(t, bad, "a NULL pointer is refused and nothing is written");',
+        "}",
+    ]
+    return "\n".join(lines)
+
+
+def render_runner_functions(catalogue: ModuleType) -> str:
+    """The text of runner/ad_runner_functions.h: which functions are built, the routines
+    of every one-output function and the loop over all of them."""
+    out = [
+        "/*",
+        " * ad_runner_functions.h - the per-function part of the vector runner, included",
+        " * once by ad_vector_runner.c after its helpers.",
+        f" * {GENERATED} (the",
+        " * function table airdata/vectors/catalogue.py).",
+        " *",
+        " * Functions built in: all of them, or with -DRUNNER_SUBSET only those named by",
+        " * -DRUNNER_WITH_<NAME> (upper-case reference name, e.g.",
+        " * -DRUNNER_WITH_PRESSURE_ALTITUDE); the port then needs to define only those",
+        " * functions.  The functions of more than",
+        " * one output (their records) have hand-written routines in ad_vector_runner.c.",
+        " */",
+    ]
+    for spec in catalogue.CATALOGUE:
+        up = spec.name.upper()
+        out += [f"#if !defined(RUNNER_SUBSET) || defined(RUNNER_WITH_{up})",
+                f"#define RUNNER_DO_{up} 1", "#else", f"#define RUNNER_DO_{up} 0", "#endif"]
+    for spec in catalogue.CATALOGUE:
+        up = spec.name.upper()
+        out += ["", f"#if RUNNER_DO_{up}"]
+        if len(spec.outputs) == 1:
+            out += [_runner_routines(spec)]
+        else:
+            out += [f"static void run_{spec.name}(tally_t *t);",
+                    f"static void null_{spec.name}(tally_t *t);"]
+        out.append(f"#endif /* RUNNER_DO_{up} */")
+    out += ["", "/* Every function built in, in the suite's order: its cases, then (when they all",
+            " * passed and no results file is written) its NULL rule. */",
+            "static void run_every_function(tally_t *t, long *failed, long *cases, "
+            "int *functions)", "{",
+            "    (void)t;", "    (void)failed;", "    (void)cases;", "    (void)functions;"]
+    for spec in catalogue.CATALOGUE:
+        n = spec.name
+        out += [f"#if RUNNER_DO_{n.upper()}",
+                f'    tally_start(t, "{n}");',
+                f"    run_{n}(t);",
+                "    if (t->failed == 0 && !RUNNER_RESULTS) {",
+                f"        null_{n}(t);",
+                "    }",
+                "    *failed += tally_finish(t);",
+                "    *functions += 1;",
+                "    *cases += t->cases;",
+                "#endif"]
+    out.append("}")
+    return "\n".join(out) + "\n"
+
+
 def outputs() -> dict[Path, str]:
     """Every generated file and its text."""
     catalogue, domains = _airdata()
@@ -326,6 +442,7 @@ def outputs() -> dict[Path, str]:
         C_DIR / "include" / "airdata_batch.h": render_batch_h(catalogue, domains),
         C_DIR / "src" / "batch.c": render_batch_c(catalogue),
         C_DIR / "src" / "domains.c": render_domains_c(domains),
+        C_DIR / "runner" / "ad_runner_functions.h": render_runner_functions(catalogue),
     }
 
 
