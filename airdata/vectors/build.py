@@ -32,17 +32,8 @@ from .._inputs import Domain
 from ..profiles import Profile, get_profile
 from ..status import Status
 from . import history
-from .catalogue import (
-    CATALOGUE,
-    RANGE_WINDOW,
-    TAGS,
-    Arg,
-    CaseSeed,
-    FunctionSpec,
-    around,
-    evaluate,
-    window,
-)
+from .cases import RANGE_WINDOW, TAGS, CaseSeed, around, window
+from .catalogue import CATALOGUE, Arg, FunctionSpec, evaluate
 from .cheader import render_common_header, render_function_header, render_umbrella_header
 from .jsonio import dumps_compact, encode_number, sha256_hex
 from .scale import (

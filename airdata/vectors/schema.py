@@ -15,7 +15,8 @@ from collections.abc import Iterator
 from typing import Any
 
 from ..status import Status
-from .catalogue import LATER_TAGS, TAGS, FunctionSpec
+from .cases import LATER_TAGS, TAGS
+from .catalogue import FunctionSpec
 
 __all__ = ["SCHEMA_VERSION", "DIALECT", "manifest_schema", "function_schema",
            "schema_path_of_manifest", "schema_path_of_function", "validate", "SchemaError"]
