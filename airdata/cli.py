@@ -6,7 +6,6 @@ An engineering and verification aid, not certified flight software.
 from __future__ import annotations
 
 import argparse
-import importlib
 import json
 import sys
 from collections.abc import Sequence
@@ -20,11 +19,6 @@ from .notice import CAUTION
 from .profiles import PROFILES, get_profile
 from .status import DomainError, Status
 from .units import from_si
-
-#: Modules that add sub-commands: each has ``register(subparsers)``, which adds its
-#: parsers and sets ``func`` (taking the parsed namespace, returning the exit code).
-SUBCOMMAND_MODULES: tuple[str, ...] = (".commands", ".limits_commands", ".vectors.commands",
-                                        ".bench", ".portcheck.commands")
 
 
 def _cmd_demo(args: argparse.Namespace) -> int:
@@ -89,8 +83,15 @@ def build_parser() -> argparse.ArgumentParser:
                       help="altimeter setting in Pa for the baro-corrected altitude")
     demo.add_argument("--json", action="store_true", help="machine-readable output")
     demo.set_defaults(func=_cmd_demo)
-    for module in SUBCOMMAND_MODULES:
-        importlib.import_module(module, __package__).register(sub)
+    from . import bench, commands, limits_commands
+    from .portcheck import commands as port_commands
+    from .vectors import commands as vector_commands
+
+    # The modules that add sub-commands, in the order of the help text: each has
+    # register(subparsers), which adds its parsers and sets func (taking the parsed
+    # namespace, returning the exit code).
+    for module in (commands, limits_commands, vector_commands, bench, port_commands):
+        module.register(sub)
     return parser
 
 

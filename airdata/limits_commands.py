@@ -1,7 +1,7 @@
 """Sub-commands ``airdata limits`` (envelope table of an aircraft file) and
 ``airdata budget`` (sensor error budget over an altitude by CAS grid).
 
-Registered by :mod:`airdata.cli` through ``SUBCOMMAND_MODULES``.
+Registered by :func:`airdata.cli.build_parser`.
 """
 
 from __future__ import annotations
