@@ -371,7 +371,7 @@ def test_compare_catches_a_port_that_is_off_by_more_than_the_bound() -> None:
     # A port result off by 1e-9 relative in Mach in one sample (the bound there is a few
     # hundred ulp: Mach is ill-conditioned in pt and ps at small qc), a wrong status in
     # another, must both be reported (in-process: the command's comparison step).
-    from airdata.commands.compare import Comparison, compare_chunk
+    from airdata.series.compare import Comparison, compare_chunk
 
     ps = np.array([30000.0, 50000.0, 70000.0])
     pt = ps + np.array([20000.0, 1000.0, 5000.0])

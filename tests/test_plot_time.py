@@ -21,8 +21,8 @@ import numpy as np
 import pytest
 
 import airdata
-from airdata.commands.plotting import Collector, draw, rejected
-from airdata.commands.timebase import TimeAxis, clock_text
+from airdata.series.plotting import Collector, draw, rejected
+from airdata.series.timebase import TimeAxis, clock_text
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "examples" / "demo_flight.csv"

@@ -340,7 +340,7 @@ def test_recorded_comparison_through_parquet(tmp_path: Path) -> None:
 # ------------------------------------------------------------------ --compare units
 
 def test_compare_reports_differences_in_output_units() -> None:
-    from airdata.commands.compare import Comparison, compare_chunk
+    from airdata.series.compare import Comparison, compare_chunk
 
     ps = np.array([30000.0, 50000.0])
     pt = ps + np.array([20000.0, 8000.0])
@@ -410,7 +410,7 @@ def test_negative_values_need_no_argparse_internals() -> None:
 
 def test_band_edges_belong_to_the_band_above() -> None:
     # Documented rule: a band holds lo <= x < hi (here on Mach edges 0.4 and 1.5).
-    from airdata.commands.compare import RecordedColumn, RecordedComparison
+    from airdata.series.compare import RecordedColumn, RecordedComparison
 
     mach = np.array([0.3999999, 0.4, 1.5, 1.4999999])
     n = len(mach)
