@@ -327,49 +327,6 @@ def _port_lines(sz: dict[str, int]) -> list[dict[str, Any]]:
 
 # --------------------------------------------------------------------------- line 6
 
-_DRIVER = r"""
-/* Benchmark driver: calls one entry point of the port on inputs read from a file. */
-#include <stdio.h>
-#include <stdlib.h>
-#include "airdata.h"
-
-#define NMAX 100000
-static double a[NMAX], b[NMAX], c[NMAX];
-
-int main(int argc, char **argv)
-{
-    FILE *f;
-    long i, n, mode;
-    double acc = 0.0;
-    ad_air_data_t out;
-    ad_real mach;
-    ad_status st;
-
-    if (argc != 4) { return 2; }
-    mode = atol(argv[1]);
-    n = atol(argv[3]);
-    if (n < 1 || n > NMAX) { return 2; }
-    f = fopen(argv[2], "rb");
-    if (f == NULL) { return 2; }
-    if (fread(a, sizeof a[0], (size_t)n, f) != (size_t)n
-        || fread(b, sizeof b[0], (size_t)n, f) != (size_t)n
-        || fread(c, sizeof c[0], (size_t)n, f) != (size_t)n) { fclose(f); return 2; }
-    fclose(f);
-    for (i = 0; i < n; i++) {
-        if (mode == 1) {
-            st = ad_air_data(a[i], b[i], c[i], 1.0, 0.0, 0, 100.0, &out);
-            acc += out.mach + (double)st;
-        } else if (mode == 2) {
-            st = ad_mach_from_impact_pressure(a[i], b[i], &mach);
-            acc += mach + (double)st;
-        } else {
-            acc += a[i] + b[i] + c[i];
-        }
-    }
-    printf("%.17g\n", acc);
-    return 0;
-}
-"""
 
 
 def _callgrind_ir(exe: Path, args: list[str], work: Path) -> int:
@@ -402,14 +359,13 @@ def _callgrind_lines(sz: dict[str, int]) -> list[dict[str, Any]]:
     qc, pss = _supersonic(rng, sz["n"])
     with tempfile.TemporaryDirectory(prefix="airdata-bench-") as tmp:
         work = Path(tmp)
-        (work / "driver.c").write_text(_DRIVER)
         exe = work / "driver"
         from . import resources
 
         srcs = sorted(str(s) for s in resources.src_dir().glob("*.c"))
         # -ffp-contract=off: the port's double-double arithmetic needs it (src/ad_dd.h).
         cmd = ["cc", "-std=c99", "-O2", "-ffp-contract=off", f"-I{resources.include_dir()}",
-               str(work / "driver.c"),
+               str(resources.c_dir() / "tests" / "bench_driver.c"),
                *srcs, "-o", str(exe), "-lm"]
         comp = subprocess.run(cmd, capture_output=True, text=True, timeout=300)
         if comp.returncode != 0:

@@ -49,7 +49,7 @@ SHARED_FILES: tuple[tuple[str, tuple[str, ...]], ...] = (
     ("bindings/c/include", ("*.h",)),
     ("bindings/c/src", ("*.c", "*.h")),
     ("bindings/c/runner", ("*.c", "*.h")),
-    ("bindings/c/tests", ("driver.c",)),
+    ("bindings/c/tests", ("driver.c", "bench_driver.c")),
     ("docs", ("equations.md",)),
 )
 
