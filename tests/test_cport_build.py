@@ -276,7 +276,7 @@ def _build_driver(tmp_path: Path, precision: str, extra: list[str]) -> Path:
 @pytest.mark.parametrize("precision", list(PRECISIONS))
 def test_driver_under_address_and_undefined_sanitizers(precision: str, tmp_path: Path) -> None:
     san = ["-O1", "-fsanitize=address,undefined", "-fno-sanitize-recover=all",
-           "-fno-omit-frame-pointer"]
+           "-fno-omit-frame-pointer", "-DAIRDATA_DEBUG_ASSERT"]  # the port's assertions on
     exe = _build_driver(tmp_path, precision, san)
     res = run([str(exe)])
     assert res.returncode == 0, res.stdout + res.stderr
@@ -291,3 +291,39 @@ def test_driver_under_valgrind_memcheck(precision: str, tmp_path: Path) -> None:
     res = run([valgrind, "-q", "--error-exitcode=9", "--leak-check=full", str(exe)])
     assert res.returncode == 0, res.stdout + res.stderr
     assert "PASS: 0 failure(s)" in res.stdout
+
+
+# ---------------------------------------------------------------- debug-only assertions
+
+def test_ad_assert_checks_only_in_a_debug_build(tmp_path: Path) -> None:
+    # AD_ASSERT (ad_internal.h): with -DAIRDATA_DEBUG_ASSERT a false invariant stops the
+    # program (assert: SIGABRT); in a release build it compiles to nothing.
+    gcc = need("gcc")
+    src = tmp_path / "a.c"
+    src.write_text('#include "ad_internal.h"\nint main(void)\n{\n    AD_ASSERT(1 == 2);\n'
+                   "    return 0;\n}\n")
+    for define, ok in (([], True), (["-DAIRDATA_DEBUG_ASSERT"], False)):
+        exe = tmp_path / f"a{len(define)}"
+        res = run([gcc, *WARN, *define, *INC, str(src), "-o", str(exe)])
+        assert res.returncode == 0, res.stderr
+        r = run([str(exe)])
+        assert (r.returncode == 0) == ok, (define, r.returncode, r.stderr)
+        if not ok:
+            assert "1 == 2" in r.stderr and r.returncode != 0
+
+
+@pytest.mark.parametrize("precision", list(PRECISIONS))
+def test_every_vector_passes_with_the_assertions_on(precision: str, tmp_path: Path) -> None:
+    # The invariants the port states (the solver's iterates within [1, u_max], the layer
+    # step |m dh| < 0.25 and its layer index) hold on every case of the suite: the
+    # vector runner built with -DAIRDATA_DEBUG_ASSERT passes, in both precisions.
+    gcc = need("gcc")
+    exe = tmp_path / "runner"
+    res = run([gcc, *WARN, "-DAIRDATA_DEBUG_ASSERT", *PRECISIONS[precision], *INC,
+               f"-I{C_DIR.parents[1] / 'vectors' / 'c'}", str(C_DIR / "runner" /
+                                                           "ad_vector_runner.c"),
+               *map(str, SRC), "-lm", "-o", str(exe)])
+    assert res.returncode == 0, res.stderr
+    r = run([str(exe)])
+    assert r.returncode == 0 and r.stdout.rstrip().endswith("30 functions: all passed"), \
+        r.stdout[-2000:] + r.stderr[-2000:]

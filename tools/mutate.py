@@ -719,7 +719,14 @@ def mutants_of_source(source: str, rel: str, types: set[str],
     def in_for(i: int) -> bool:
         return any(a < i < b for a, b in for_ranges)
 
+    # Debug-only assertions (ad_internal.h: AD_ASSERT compiles to nothing in a release
+    # build, the one the vectors judge): their arguments are not mutated.
+    asserts = [(k + 1, _matching_close(toks, k + 1)) for k, t in enumerate(toks)
+               if t.text == "AD_ASSERT" and k + 1 < len(toks) and toks[k + 1].text == "("]
+
     for i, t in enumerate(toks):
+        if any(a < i < b for a, b in asserts):
+            continue
         if t.kind == "number":
             if _is_float_literal(t.text):
                 const_mutants(t)

@@ -22,6 +22,19 @@
 
 #include <math.h>
 
+/*
+ * AD_ASSERT(cond): an invariant the code relies on, stated where it matters.  Checked
+ * only in a debug build (-DAIRDATA_DEBUG_ASSERT, as the sanitizer driver and the
+ * runner's assertion build in tests/test_cport_build.py are built); in a release build
+ * it compiles to nothing, so it costs nothing and adds no branch to the port.
+ */
+#if defined(AIRDATA_DEBUG_ASSERT)
+#include <assert.h>
+#define AD_ASSERT(cond) assert(cond)
+#else
+#define AD_ASSERT(cond) ((void)0)
+#endif
+
 #include "airdata.h"
 #include "airdata_batch.h"
 #include "ad_constants.h"

@@ -83,6 +83,8 @@ static ad_real ad_supersonic_mach_squared(ad_real r)
         const ad_real dphi = phi * AD_K_2P5 / (u * (AD_K_7 * u - AD_K_1));
         lo = (g < (ad_real)0) ? u : lo;
         u = ad_at_least(u - g / (AD_K_1 - dphi), lo);
+        /* No upper clamp: by convexity no iterate passes u_max (see above). */
+        AD_ASSERT((u >= AD_K_1) && (u <= u_max));
     }
     return ad_phi(a, u);
 }
