@@ -315,7 +315,7 @@ def test_ad_assert_checks_only_in_a_debug_build(tmp_path: Path) -> None:
 @pytest.mark.parametrize("precision", list(PRECISIONS))
 def test_every_vector_passes_with_the_assertions_on(precision: str, tmp_path: Path) -> None:
     # The invariants the port states (the solver's iterates within [1, u_max], the layer
-    # step |m dh| < 0.25 and its layer index) hold on every case of the suite: the
+    # step |m dh| < 0.25) hold on every case of the suite: the
     # vector runner built with -DAIRDATA_DEBUG_ASSERT passes, in both precisions.
     gcc = need("gcc")
     exe = tmp_path / "runner"

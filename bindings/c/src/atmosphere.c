@@ -41,8 +41,7 @@ ad_dd ad_i_pressure_dd(ad_real h, int i)
     const ad_layer *L = &ad_i_layer[i];
     const ad_real dh = h - L->hb;
     const ad_real e = ad_exp(-(L->k * ad_log1p(L->m * dh) + L->c * dh));
-    AD_ASSERT((i >= 0) && (i < AD_NLAYERS) && (L->m * dh > (ad_real)-0.25)
-              && (L->m * dh < (ad_real)0.25));
+    AD_ASSERT((L->m * dh > (ad_real)-0.25) && (L->m * dh < (ad_real)0.25));
     return ad_i_dd_mul(ad_i_dd_pair(L->pb, L->pb_lo), ad_i_dd_of(e));
 }
 
