@@ -13,6 +13,7 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from ._blocks import elementwise
+from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from ._layers import (
     LayerTable,
@@ -57,6 +58,7 @@ def altitude_of_pressure(p: F64, t: LayerTable) -> F64:
     return t.hb[i] + (np.expm1(t.n[i] * lr) / t.m_div[i] + t.sh_iso[i] * lr)
 
 
+@fill_doc
 def pressure_altitude(
     ps: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
 ) -> FloatOrArray:
@@ -66,13 +68,10 @@ def pressure_altitude(
     ----------
     ps : float or array_like
         Static pressure, Pa, in [p(84852 m), p(-5000 m)] = [0.3734, 177687] Pa (icao).
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -103,6 +102,7 @@ def pressure_altitude(
     return args.finish(altitude_of_pressure(args["ps"], layer_table(prof)))
 
 
+@fill_doc
 def pressure_at_altitude(
     h: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
 ) -> FloatOrArray:
@@ -112,13 +112,10 @@ def pressure_at_altitude(
     ----------
     h : float or array_like
         Geopotential pressure altitude, m, in [-5000, 84852].
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -145,6 +142,7 @@ def pressure_at_altitude(
     return args.finish(standard_pressure(hh, layer_of_altitude(hh, t), t))
 
 
+@fill_doc
 def baro_corrected_altitude(
     ps: ArrayLike,
     setting: ArrayLike,
@@ -156,17 +154,13 @@ def baro_corrected_altitude(
 
     Parameters
     ----------
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
+    {ps}
     setting : float or array_like
         Altimeter setting (QNH), Pa, in [p(11000 m), p(-5000 m)] = [22632, 177687] Pa.
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -193,6 +187,7 @@ def baro_corrected_altitude(
                        - altitude_of_pressure(args["setting"], t))
 
 
+@fill_doc
 def altimeter_setting(
     ps: ArrayLike,
     elevation: ArrayLike,
@@ -211,13 +206,10 @@ def altimeter_setting(
     elevation : float or array_like
         Station elevation (geopotential), m, in [-5000, 11000].  The pressure altitude
         of the resulting setting, H(ps) - elevation, must lie in [-5000, 11000] m.
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -258,6 +250,7 @@ def altimeter_setting(
     return args.finish(p * np.exp(np.log1p(x) / n))
 
 
+@fill_doc
 def density_altitude(
     ps: ArrayLike,
     sat: ArrayLike,
@@ -269,19 +262,15 @@ def density_altitude(
 
     Parameters
     ----------
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
+    {ps}
     sat : float or array_like
         Static air temperature, K, in [50, 5000].  The density ps/(R sat) must lie
         within the model, [rho(84852 m), rho(-5000 m)] widened by 8 eps relative
         (:func:`density_range`).
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------

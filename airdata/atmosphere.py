@@ -13,6 +13,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
+from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from ._layers import layer_of_altitude, layer_table, state_dd
 from .profiles import GAMMA, Profile, get_profile
@@ -22,6 +23,7 @@ __all__ = ["Atmosphere", "atmosphere", "geopotential_altitude", "geometric_altit
 F64 = NDArray[np.float64]
 
 
+@fill_doc
 @dataclass(frozen=True)
 class Atmosphere:
     """State of the atmosphere at one or more altitudes (SI units).
@@ -40,8 +42,7 @@ class Atmosphere:
         Pa s (Sutherland's law).
     kinematic_viscosity : float or ndarray
         m2/s.
-    profile : str
-        Name of the constants profile used.
+    {profile_name}
     """
 
     temperature: FloatOrArray
@@ -53,6 +54,7 @@ class Atmosphere:
     profile: str
 
 
+@fill_doc
 def atmosphere(
     h: ArrayLike,
     dT: ArrayLike = 0.0,
@@ -64,20 +66,17 @@ def atmosphere(
 
     Parameters
     ----------
-    h : float or array_like
-        Geopotential altitude, m, in [-5000, 84852].
+    {h}
     dT : float or array_like, optional
         Temperature deviation of an off-standard day, K, in [-100, 100].  The
         pressure is that of the standard day at ``h``; temperature and everything
         derived from it (density, speed of sound, viscosities) are shifted.
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
+    {profile}
     strict : bool, optional
         If true (default) raise :class:`DomainError` on the first bad element; if
         false give NaN outputs for just the bad elements.
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -126,6 +125,7 @@ def atmosphere(
     )
 
 
+@fill_doc
 def geopotential_altitude(
     z: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
 ) -> FloatOrArray:
@@ -136,13 +136,10 @@ def geopotential_altitude(
     z : float or array_like
         Geometric altitude, m, in [-4996.07, 86000.00] (the image of the model's
         geopotential range).
-    profile : Profile or str, optional
-        Constants profile (supplies r0 = 6 356 766 m).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile_r0}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -164,6 +161,7 @@ def geopotential_altitude(
     return args.finish(prof.r0 * zz / (prof.r0 + zz))
 
 
+@fill_doc
 def geometric_altitude(
     h: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
 ) -> FloatOrArray:
@@ -171,15 +169,11 @@ def geometric_altitude(
 
     Parameters
     ----------
-    h : float or array_like
-        Geopotential altitude, m, in [-5000, 84852].
-    profile : Profile or str, optional
-        Constants profile (supplies r0 = 6 356 766 m).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {h}
+    {profile_r0}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------

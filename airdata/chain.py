@@ -10,6 +10,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
+from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from ._layers import layer_table
 from .altimetry import altitude_of_density, altitude_of_pressure, density_range
@@ -27,6 +28,7 @@ _TOTAL_PRESSURE = dom.TOTAL_PRESSURE
 _NOISE = dom.NOISE
 
 
+@fill_doc
 @dataclass(frozen=True)
 class AirData:
     """Every output of one air-data computation (SI units).
@@ -52,8 +54,7 @@ class AirData:
     status : int or ndarray of int8
         :class:`Status` of each sample: ``OK``, ``IMPACT_PRESSURE_ZEROED`` or, with
         ``strict=False``, the error that made that sample's outputs NaN.
-    profile : str
-        Name of the constants profile used.
+    {profile_name}
     """
 
     pressure_altitude: FloatOrArray
@@ -82,6 +83,7 @@ def check_noise_band(noise_band: float) -> None:
         raise DomainError("noise_band", float(noise_band), None, _NOISE.describe(), st)
 
 
+@fill_doc
 def air_data(
     ps: ArrayLike,
     pt: ArrayLike,
@@ -97,13 +99,11 @@ def air_data(
 
     Parameters
     ----------
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
+    {ps}
     pt : float or array_like
         Total (pitot) pressure, Pa, > 0.  The impact pressure pt - ps must be
         >= -noise_band and must not exceed its value at Mach 10.
-    tat : float or array_like
-        Total air temperature, K, in [50, 5000].
+    {tat}
     recovery : float or array_like, optional
         Recovery factor of the TAT probe, in [0, 1]; default 1.
     setting : float or array_like, optional
@@ -113,14 +113,12 @@ def air_data(
         is sensor noise of an aircraft at rest: it is read as zero (zero airspeed,
         Mach 0, SAT = TAT) and the sample's status is ``IMPACT_PRESSURE_ZEROED``.  A
         deeper one is refused as ``INVALID_INPUT``.
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
+    {profile}
     strict : bool, optional
         Raise on the first bad sample (default) or give NaN outputs and an error status
         for just the bad samples.
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------

@@ -45,6 +45,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from . import _domains as dom
+from ._docs import fill_doc
 from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
 from ._layers import layer_table
 from .aircraft import Aircraft
@@ -128,6 +129,7 @@ def _checked_stall_mach(args: Inputs, prof: Profile) -> F64:
     return np.where(over, 0.0, m)
 
 
+@fill_doc
 def stall_eas(
     weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, load_factor: ArrayLike = 1.0,
     *, profile: Profile | str | None = None, strict: bool = True,
@@ -136,21 +138,16 @@ def stall_eas(
 
     Parameters
     ----------
-    weight : float or array_like
-        Aircraft weight, N, in (0, 1e7].
-    wing_area : float or array_like
-        Reference wing area, m2, in (0, 2000].
-    cl_max : float or array_like
-        Maximum lift coefficient, in (0, 10].
+    {weight}
+    {wing_area}
+    {cl_max}
     load_factor : float or array_like, optional
         Load factor n = lift/weight, in (0, 10]; default 1 (level flight).
     profile : Profile or str, optional
         Constants profile (supplies the sea-level density rho0).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -181,6 +178,7 @@ def stall_eas(
     return args.finish(_checked_stall_eas(args, prof.rho0))
 
 
+@fill_doc
 def stall_mach(
     weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
     load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
@@ -190,23 +188,15 @@ def stall_mach(
 
     Parameters
     ----------
-    weight : float or array_like
-        Aircraft weight, N, in (0, 1e7].
-    wing_area : float or array_like
-        Reference wing area, m2, in (0, 2000].
-    cl_max : float or array_like
-        Maximum lift coefficient, in (0, 10].
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    load_factor : float or array_like, optional
-        Load factor, in (0, 10]; default 1.
-    profile : Profile or str, optional
-        Constants profile (supplies rho0, p0, a0 and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {weight}
+    {wing_area}
+    {cl_max}
+    {ps}
+    {load_factor}
+    {profile_rho0_p0_a0_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -232,6 +222,7 @@ def stall_mach(
     return args.finish(_checked_stall_mach(args, prof))
 
 
+@fill_doc
 def stall_cas(
     weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
     load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
@@ -241,23 +232,15 @@ def stall_cas(
 
     Parameters
     ----------
-    weight : float or array_like
-        Aircraft weight, N, in (0, 1e7].
-    wing_area : float or array_like
-        Reference wing area, m2, in (0, 2000].
-    cl_max : float or array_like
-        Maximum lift coefficient, in (0, 10].
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    load_factor : float or array_like, optional
-        Load factor, in (0, 10]; default 1.
-    profile : Profile or str, optional
-        Constants profile (supplies rho0, p0, a0 and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {weight}
+    {wing_area}
+    {cl_max}
+    {ps}
+    {load_factor}
+    {profile_rho0_p0_a0_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -291,6 +274,7 @@ def stall_cas(
                                 prof.a0 * mach_from_ratio(np.where(over, 0.0, x))))
 
 
+@fill_doc
 def stall_tas(
     weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
     sat: ArrayLike, load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
@@ -300,25 +284,17 @@ def stall_tas(
 
     Parameters
     ----------
-    weight : float or array_like
-        Aircraft weight, N, in (0, 1e7].
-    wing_area : float or array_like
-        Reference wing area, m2, in (0, 2000].
-    cl_max : float or array_like
-        Maximum lift coefficient, in (0, 10].
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    sat : float or array_like
-        Static air temperature, K, in [50, 5000].
-    load_factor : float or array_like, optional
-        Load factor, in (0, 10]; default 1.
+    {weight}
+    {wing_area}
+    {cl_max}
+    {ps}
+    {sat}
+    {load_factor}
     profile : Profile or str, optional
         Constants profile (supplies rho0, p0, a0, R and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -354,6 +330,7 @@ def _cas_limit_qc(args: Inputs, prof: Profile) -> F64:
     return impact_from_mach(np.where(over, 0.0, m0), prof.p0)
 
 
+@fill_doc
 def crossover_altitude(
     cas_limit: ArrayLike, mach_limit: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -364,17 +341,14 @@ def crossover_altitude(
 
     Parameters
     ----------
-    cas_limit : float or array_like
-        Calibrated airspeed limit, m/s, in (0, 10 a0].
+    {cas_limit}
     mach_limit : float or array_like
         Mach limit, in (0, 1): a subsonic limit (Mach 1 and above are out of range).
     profile : Profile or str, optional
         Constants profile (supplies p0, a0 and the atmosphere).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -475,6 +449,7 @@ def _tiny_limits(args: Inputs, prof: Profile) -> tuple[NDArray[np.bool_], F64, F
             (m * TINY_SCALE) * np.sqrt(args["ps"] / prof.p0))
 
 
+@fill_doc
 def max_operating_cas(
     ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
     profile: Profile | str | None = None, strict: bool = True,
@@ -485,19 +460,13 @@ def max_operating_cas(
 
     Parameters
     ----------
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    cas_limit : float or array_like
-        Calibrated airspeed limit, m/s, in (0, 10 a0].
-    mach_limit : float or array_like
-        Mach limit, in (0, 10].
-    profile : Profile or str, optional
-        Constants profile (supplies p0, a0 and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {ps}
+    {cas_limit}
+    {mach_limit}
+    {profile_p0_a0_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -529,6 +498,7 @@ def max_operating_cas(
     return args.finish(np.where(by_cas, args["cas_limit"], cas))
 
 
+@fill_doc
 def max_operating_mach(
     ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
     profile: Profile | str | None = None, strict: bool = True,
@@ -539,19 +509,13 @@ def max_operating_mach(
 
     Parameters
     ----------
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    cas_limit : float or array_like
-        Calibrated airspeed limit, m/s, in (0, 10 a0].
-    mach_limit : float or array_like
-        Mach limit, in (0, 10].
-    profile : Profile or str, optional
-        Constants profile (supplies p0, a0 and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {ps}
+    {cas_limit}
+    {mach_limit}
+    {profile_p0_a0_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -583,6 +547,7 @@ def max_operating_mach(
     return args.finish(np.where(by_mach, args["mach_limit"], m))
 
 
+@fill_doc
 def ceiling_margin(
     ps: ArrayLike, ceiling: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -591,17 +556,13 @@ def ceiling_margin(
 
     Parameters
     ----------
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
+    {ps}
     ceiling : float or array_like
         Maximum altitude, geopotential pressure altitude, m, in [-5000, 84852].
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -729,6 +690,7 @@ def _default_altitudes(ceiling: float) -> F64:
     return np.append(h, ceiling)
 
 
+@fill_doc
 def envelope(
     aircraft: Aircraft | str | Path, altitudes: ArrayLike | None = None, *, dT: float = 0.0,
     load_factor: float = 1.0, profile: Profile | str | None = None,
@@ -747,8 +709,7 @@ def envelope(
         the true airspeeds.
     load_factor : float, optional
         Load factor of the stall speeds, in (0, 10]; default 1.
-    profile : Profile or str, optional
-        Constants profile, ``"icao"`` (default) or ``"us1976"``.
+    {profile}
 
     Returns
     -------

@@ -48,6 +48,7 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from ._blocks import elementwise
+from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .profiles import Profile, get_profile
 from .status import Status
@@ -239,6 +240,7 @@ def mach_from_pressures(qc: F64, p: F64) -> F64:
     return np.where(tiny, lin, mach_from_ratio(np.where(tiny, 0.0, x)))
 
 
+@fill_doc
 def impact_pressure_from_mach(
     mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -247,17 +249,12 @@ def impact_pressure_from_mach(
 
     Parameters
     ----------
-    mach : float or array_like
-        Mach number, in [0, 10].
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    profile : Profile or str, optional
-        Constants profile; used only for the static pressure range.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {mach}
+    {ps}
+    {profile_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -282,6 +279,7 @@ def impact_pressure_from_mach(
     return args.finish(impact_from_mach(args["mach"], args["ps"]))
 
 
+@fill_doc
 def mach_from_impact_pressure(
     qc: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -292,15 +290,11 @@ def mach_from_impact_pressure(
     ----------
     qc : float or array_like
         Impact pressure pt - ps, Pa, >= 0; qc/ps must not exceed its value at Mach 10.
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    profile : Profile or str, optional
-        Constants profile; used only for the static pressure range.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {ps}
+    {profile_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -329,6 +323,7 @@ def mach_from_impact_pressure(
     return args.finish(mach_from_pressures(np.where(over, 0.0, args["qc"]), args["ps"]))
 
 
+@fill_doc
 def impact_pressure_from_cas(
     cas: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
 ) -> FloatOrArray:
@@ -338,13 +333,10 @@ def impact_pressure_from_cas(
     ----------
     cas : float or array_like
         Calibrated airspeed, m/s, in [0, 10 a0] (a0 = 340.294 m/s, icao).
-    profile : Profile or str, optional
-        Constants profile (supplies p0 and a0).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile_p0_a0}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -373,6 +365,7 @@ def impact_pressure_from_cas(
     return args.finish(impact_from_mach(np.where(over, 0.0, m), prof.p0))
 
 
+@fill_doc
 def cas_from_impact_pressure(
     qc: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
 ) -> FloatOrArray:
@@ -382,13 +375,10 @@ def cas_from_impact_pressure(
     ----------
     qc : float or array_like
         Impact pressure, Pa, in [0, p0 f(10)] (about 1.30e7 Pa).
-    profile : Profile or str, optional
-        Constants profile (supplies p0 and a0).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile_p0_a0}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------

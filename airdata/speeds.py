@@ -9,6 +9,7 @@ from __future__ import annotations
 import numpy as np
 
 from . import _domains as dom
+from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .pitot import (
     MACH_LIMIT,
@@ -35,6 +36,7 @@ __all__ = [
 
 
 
+@fill_doc
 def cas_from_mach(
     mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -43,18 +45,14 @@ def cas_from_mach(
 
     Parameters
     ----------
-    mach : float or array_like
-        Mach number, in [0, 10].
+    {mach}
     ps : float or array_like
         Static pressure, Pa, in [0.3734, 177687] Pa (icao).  The impact pressure
         must not exceed that of CAS = 10 a0.
-    profile : Profile or str, optional
-        Constants profile (supplies p0, a0 and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile_p0_a0_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -86,6 +84,7 @@ def cas_from_mach(
                                 prof.a0 * mach_from_ratio(np.where(over, 0.0, x))))
 
 
+@fill_doc
 def mach_from_cas(
     cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -99,13 +98,10 @@ def mach_from_cas(
     ps : float or array_like
         Static pressure, Pa, in [0.3734, 177687] Pa (icao).  The resulting Mach
         number must not exceed 10.
-    profile : Profile or str, optional
-        Constants profile (supplies p0, a0 and the pressure range).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {profile_p0_a0_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -140,6 +136,7 @@ def mach_from_cas(
                                 mach_from_ratio(np.where(over, 0.0, x))))
 
 
+@fill_doc
 def eas_from_mach(
     mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -148,17 +145,12 @@ def eas_from_mach(
 
     Parameters
     ----------
-    mach : float or array_like
-        Mach number, in [0, 10].
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    profile : Profile or str, optional
-        Constants profile (supplies p0 and a0).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {mach}
+    {ps}
+    {profile_p0_a0}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -183,6 +175,7 @@ def eas_from_mach(
     return args.finish(prof.a0 * args["mach"] * np.sqrt(args["ps"] / prof.p0))
 
 
+@fill_doc
 def mach_from_eas(
     eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -193,15 +186,11 @@ def mach_from_eas(
     ----------
     eas : float or array_like
         Equivalent airspeed, m/s, in [0, 4000].  The Mach number must not exceed 10.
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    profile : Profile or str, optional
-        Constants profile (supplies p0 and a0).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {ps}
+    {profile_p0_a0}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -228,6 +217,7 @@ def mach_from_eas(
     return args.finish(m)
 
 
+@fill_doc
 def tas_from_mach(
     mach: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -236,17 +226,12 @@ def tas_from_mach(
 
     Parameters
     ----------
-    mach : float or array_like
-        Mach number, in [0, 10].
-    sat : float or array_like
-        Static air temperature, K, in [50, 5000].
-    profile : Profile or str, optional
-        Constants profile (supplies R).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {mach}
+    {sat}
+    {profile_R}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -271,6 +256,7 @@ def tas_from_mach(
     return args.finish(args["mach"] * np.sqrt((GAMMA * prof.R) * args["sat"]))
 
 
+@fill_doc
 def mach_from_tas(
     tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -281,15 +267,11 @@ def mach_from_tas(
     ----------
     tas : float or array_like
         True airspeed, m/s, in [0, 4000].  The Mach number must not exceed 10.
-    sat : float or array_like
-        Static air temperature, K, in [50, 5000].
-    profile : Profile or str, optional
-        Constants profile (supplies R).
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {sat}
+    {profile_R}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -316,6 +298,7 @@ def mach_from_tas(
     return args.finish(m)
 
 
+@fill_doc
 def dynamic_pressure(
     mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
     strict: bool = True,
@@ -324,17 +307,12 @@ def dynamic_pressure(
 
     Parameters
     ----------
-    mach : float or array_like
-        Mach number, in [0, 10].
-    ps : float or array_like
-        Static pressure, Pa, in [0.3734, 177687] Pa (icao).
-    profile : Profile or str, optional
-        Constants profile; used only for the static pressure range.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {mach}
+    {ps}
+    {profile_range}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------

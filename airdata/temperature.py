@@ -7,11 +7,13 @@ TAT = SAT (1 + recovery (gamma - 1)/2 M^2), with recovery = 1 for an ideal probe
 from __future__ import annotations
 
 from . import _domains as dom
+from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 
 __all__ = ["sat_from_tat", "tat_from_sat"]
 
 
+@fill_doc
 def sat_from_tat(
     tat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *, strict: bool = True
 ) -> FloatOrArray:
@@ -19,17 +21,12 @@ def sat_from_tat(
 
     Parameters
     ----------
-    tat : float or array_like
-        Total air temperature, K, in [50, 5000].
-    mach : float or array_like
-        Mach number, in [0, 10].
-    recovery : float or array_like, optional
-        Probe recovery factor, in [0, 1]; 1 (default) for full recovery.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {tat}
+    {mach}
+    {recovery}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -55,6 +52,7 @@ def sat_from_tat(
     return args.finish(args["tat"] / (1.0 + 0.2 * args["recovery"] * (m * m)))
 
 
+@fill_doc
 def tat_from_sat(
     sat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *, strict: bool = True
 ) -> FloatOrArray:
@@ -62,17 +60,12 @@ def tat_from_sat(
 
     Parameters
     ----------
-    sat : float or array_like
-        Static air temperature, K, in [50, 5000].
-    mach : float or array_like
-        Mach number, in [0, 10].
-    recovery : float or array_like, optional
-        Probe recovery factor, in [0, 1]; 1 (default) for full recovery.
-    strict : bool, optional
-        Raise on bad input (default) or give NaN for just those elements.
+    {sat}
+    {mach}
+    {recovery}
+    {strict}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
