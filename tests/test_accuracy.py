@@ -511,7 +511,7 @@ def _stall_eas64(weight: F64, wing_area: F64, cl_max: F64, load_factor: F64, c: 
 
 
 def _limit_cases(c: Consts) -> list[Case]:
-    """The limit functions (airdata/limits.py, LIM-1 .. LIM-5) under profile ``c``."""
+    """The limit functions (airdata/limits/equations.py, LIM-1 .. LIM-5) under profile ``c``."""
     name = c.name
     wing, load = _wing_cols(), _load_col()
     p_col, h_col, temp = pressure_col(c), altitude_col(c), temperature_col()

@@ -145,7 +145,7 @@ KINDS = {
     "ratio": Kind(1e-7, 140.0, _around(0.0, RATIO_SONIC, RATIO_MAX, 1e-7), log=True),
     # (pt - ps)/ps for the chain
     "pt_ratio": Kind(-2e-3, 140.0, _around(0.0, RATIO_SONIC, RATIO_MAX, -1e-3)),
-    # the limit functions' own arguments (airdata/limits.py)
+    # the limit functions' own arguments (airdata/limits/equations.py)
     "weight": Kind(1e-3, 2.0e7, _around(1.0e7, 1.0), log=True),
     "wing_area": Kind(1e-2, 3000.0, _around(2000.0, 1.0), log=True),
     "cl_max": Kind(0.05, 12.0, _around(10.0, 1.0)),

@@ -149,7 +149,7 @@ def _mk_args() -> dict[str, Arg]:
     a["noise_band"] = Arg("noise_band", "Pa", "noise_band", ("lin", None, None),
                           lambda p: [NOISE_BAND])
     a["use_setting"] = Arg("use_setting", "", None, kind="flag")
-    # The limit functions (airdata/limits.py).
+    # The limit functions (airdata/limits/equations.py).
     a["weight"] = Arg("weight", "N", "weight", ("log", 1.0e3, 1.0e7),
                       lambda p: [6.0e5, 2.0e4, 3.0e6])
     a["wing_area"] = Arg("wing_area", "m2", "wing_area", ("log", 5.0, 2000.0),

@@ -105,7 +105,7 @@ ad_status ad_air_data(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
                       ad_real setting, int use_setting, ad_real noise_band,
                       ad_air_data_t *out);
 
-/* limits.c: flight-envelope limits (LIM-1 .. LIM-5), mirroring airdata/limits.py.
+/* limits.c: flight-envelope limits (LIM-1 .. LIM-5), mirroring airdata/limits/equations.py.
  * weight N, wing_area m2, cl_max and load_factor dimensionless (load_factor = 1 for
  * level flight; Python's default), cas_limit m/s, mach_limit dimensionless, ceiling m
  * (geopotential pressure altitude).  crossover_altitude takes a subsonic Mach limit,

@@ -1,5 +1,5 @@
 /*
- * limits.c - flight-envelope limits (LIM-1 .. LIM-5), mirroring airdata/limits.py;
+ * limits.c - flight-envelope limits (LIM-1 .. LIM-5), mirroring airdata/limits/;
  * gamma = 1.4.  f(M) = qc/ps of PIT-1 (ad_i_ratio_from_mach), F^-1 its inverse
  * (ad_i_mach_from_ratio), H(ps) the pressure altitude of ALT-1
  * (ad_i_altitude_of_pressure).
@@ -18,7 +18,7 @@
  * maximum operating cas_limit/a0 <= 10.  As in the reference, these derived checks
  * are exact (no slack).  A bad one gives its status and a NaN output.
  *
- * Tiny speeds (airdata/limits.py): below Mach 2^-40 a Mach <-> CAS conversion takes
+ * Tiny speeds (airdata/limits/): below Mach 2^-40 a Mach <-> CAS conversion takes
  * its linear limit (ad_i_cas_of_mach, ad_i_mach_of_cas, as SPD-1 does), and where
  * both limits of LIM-3 or LIM-4 are that small (their impact pressures may underflow)
  * the comparison and the crossover pressure take the linear limit qc = 0.7 p M^2 as
@@ -78,7 +78,7 @@ static ad_status ad_check_wing(ad_real w, ad_real s, ad_real cl)
 /* LIM-1 on checked arguments; derived check eas <= AD_SPEED_HI.  Where 2 n W,
  * rho0 S CL or their quotient is below the smallest normal number (tiny valid
  * inputs), the same from square roots of the factors, which has no subnormal
- * intermediate while the result is normal (airdata/limits.py). */
+ * intermediate while the result is normal (airdata/limits/equations.py). */
 static ad_status ad_stall_eas_i(ad_real w, ad_real s, ad_real cl, ad_real n, ad_real *eas)
 {
     const ad_real num = (AD_K_2 * n) * w;

@@ -78,7 +78,8 @@ def wrap(head: str, params: list[str], tail: str = ");", indent: int | None = No
 
 def _topic(spec: Any) -> str:
     import airdata
-    return str(getattr(airdata, spec.name).__module__).rsplit(".", 1)[-1]
+    # airdata.<topic> or airdata.<topic>.<module>: the topic names the C file too
+    return str(getattr(airdata, spec.name).__module__).split(".")[1]
 
 
 def _batch_params(spec: Any) -> tuple[list[str], list[str]]:

@@ -1,57 +1,20 @@
-"""Flight-envelope limits: stall speed, the maximum operating CAS/Mach pair and its
-crossover altitude, the maximum altitude, and the envelope table of an aircraft.
-
-Equations LIM-1 .. LIM-5 (gamma = 1.4; f(M) = qc/ps of PIT-1; F^-1 its inverse, PIT-2):
-
-LIM-1  stall EAS from lift = weight: eas = sqrt(2 n W / (rho0 S CLmax)).
-LIM-2  stall Mach, CAS and TAS at static pressure ps: M = eas / (a0 sqrt(ps/p0))
-       (SPD-2 inverted), cas = a0 F^-1(ps f(M)/p0) (SPD-1), tas = M sqrt(gamma R sat)
-       (SPD-3).  EAS does not change with altitude; CAS does, through compressibility.
-LIM-3  crossover altitude of a (CAS limit, Mach limit) pair: qc = p0 f(cas/a0) (PIT-3),
-       ps = qc / f(M), h = H(ps) (ALT-1).
-LIM-4  maximum operating CAS and Mach at ps: the lower of the two limits, compared
-       through impact pressure: qc_cas = p0 f(cas/a0), qc_mach = ps f(M).  Where the
-       CAS limit governs (qc_cas <= qc_mach) the maximum CAS *is* the CAS limit and the
-       maximum Mach is F^-1(qc_cas/ps); where the Mach limit governs the maximum Mach
-       *is* the Mach limit and the maximum CAS is a0 F^-1(qc_mach/p0).
-LIM-5  maximum altitude as a fixed pressure altitude: the margin to it is
-       ceiling - H(ps), whatever the temperature or the altimeter setting.
-
-Tiny speeds: below Mach 2^-40 (``pitot.TINY_MACH``) a Mach <-> CAS conversion takes
-its linear limit (``pitot.tiny_linear``, ``pitot.tiny_mach_of_cas``, as SPD-1 does,
-with no subnormal intermediate), and where both limits of LIM-3 or LIM-4 are that
-small, where their impact pressures may underflow, the comparison and the crossover
-pressure take the linear limit qc = 0.7 p M^2 too: M sqrt(ps/p0) against cas/a0 (both
-scaled by ``pitot.TINY_SCALE``), ps = p0 ((cas/M)/a0)^2.
-
-The kernels follow the pattern of :mod:`airdata.speeds` (argument order, statuses,
-``strict``) so that they port one to one to C.
-
-References
-----------
-NACA Report 1135 (1953), eqs. 44 and 100 (pitot relations); ICAO Doc 7488/3 (1993)
-(standard atmosphere); lift equation L = q S CL with q = rho0 eas^2 / 2 (definition of
-equivalent airspeed).
+"""Flight-envelope limit equations LIM-1 .. LIM-5 (the package docstring,
+:mod:`airdata.limits`, states them): stall speeds, the crossover altitude of a CAS/Mach
+limit pair, the maximum operating CAS and Mach, and the margin to a maximum altitude.
+Mirrors bindings/c/src/limits.c.
 """
 
 from __future__ import annotations
 
-import math
-from dataclasses import dataclass
-from pathlib import Path
-from typing import Any
-
 import numpy as np
 from numpy.typing import NDArray
 
-from . import _domains as dom
-from ._docs import fill_doc
-from ._inputs import ArrayLike, Domain, FloatOrArray, Inputs
-from ._layers import layer_table
-from .aircraft import Aircraft
-from .altimetry import altitude_of_pressure
-from .atmosphere import atmosphere
-from .pitot import (
+from .. import _domains as dom
+from .._docs import fill_doc
+from .._inputs import ArrayLike, Domain, FloatOrArray, Inputs
+from .._layers import layer_table
+from ..altimetry import altitude_of_pressure
+from ..pitot import (
     RATIO_MAX,
     TINY_MACH,
     TINY_SCALE,
@@ -61,15 +24,14 @@ from .pitot import (
     tiny_linear,
     tiny_mach_of_cas,
 )
-from .profiles import GAMMA, Profile, get_profile
-from .status import DomainError, Status
+from ..profiles import GAMMA, Profile, get_profile
+from ..status import Status
 
 __all__ = [
     "WEIGHT", "WING_AREA", "CL_MAX", "LOAD_FACTOR", "CAS_LIMIT", "MACH_LIMIT",
     "SUBSONIC_MACH_LIMIT",
     "stall_eas", "stall_mach", "stall_cas", "stall_tas",
     "crossover_altitude", "max_operating_cas", "max_operating_mach", "ceiling_margin",
-    "SpeedSet", "Envelope", "envelope", "plot_envelope",
 ]
 
 F64 = NDArray[np.float64]
@@ -586,253 +548,3 @@ def ceiling_margin(
     prof = get_profile(profile)
     args = Inputs(strict, ps=(ps, dom.pressure(prof)), ceiling=(ceiling, dom.altitude(prof)))
     return args.finish(args["ceiling"] - altitude_of_pressure(args["ps"], layer_table(prof)))
-
-
-# --------------------------------------------------------------------------------------
-# The envelope table
-
-
-@dataclass(frozen=True)
-class SpeedSet:
-    """One speed limit expressed four ways, one value per table row.
-
-    Attributes
-    ----------
-    cas, eas, tas : ndarray
-        Calibrated, equivalent and true airspeed, m/s.
-    mach : ndarray
-        Mach number.
-    """
-
-    cas: F64
-    eas: F64
-    tas: F64
-    mach: F64
-
-    def as_lists(self) -> dict[str, list[float]]:
-        """JSON-ready lists, m/s and Mach."""
-        return {"cas_m_s": self.cas.tolist(), "eas_m_s": self.eas.tolist(),
-                "tas_m_s": self.tas.tolist(), "mach": self.mach.tolist()}
-
-
-@dataclass(frozen=True)
-class Envelope:
-    """Every limit of one aircraft over a column of pressure altitudes (SI units).
-
-    Attributes
-    ----------
-    aircraft : Aircraft
-        The aircraft.
-    altitude : ndarray
-        Geopotential pressure altitude of each row, m.
-    pressure : ndarray
-        Static pressure, Pa.
-    sat : ndarray
-        Static air temperature of the day (standard plus ``dT``), K.
-    dT : float
-        Temperature deviation from the standard day, K.
-    load_factor : float
-        Load factor of the stall speeds.
-    stall_light, stall_heavy : SpeedSet
-        Stall speed at the lightest and at the heaviest weight.
-    max_operating : SpeedSet
-        Maximum operating speed (lower of the CAS and Mach limits).
-    mach_governs : ndarray of bool
-        True where the Mach limit is the lower one.
-    above_ceiling : ndarray of bool
-        True where the row lies above the maximum altitude.
-    crossover_altitude : float
-        Pressure altitude where the CAS and Mach limits coincide, m (the supersonic
-        pitot relation for a Mach limit above 1); NaN when they do not meet within the
-        standard atmosphere [-5000, 84852] m.
-    ceiling : float
-        Maximum altitude (pressure altitude), m.
-    profile : str
-        Name of the constants profile.
-    """
-
-    aircraft: Aircraft
-    altitude: F64
-    pressure: F64
-    sat: F64
-    dT: float
-    load_factor: float
-    stall_light: SpeedSet
-    stall_heavy: SpeedSet
-    max_operating: SpeedSet
-    mach_governs: NDArray[np.bool_]
-    above_ceiling: NDArray[np.bool_]
-    crossover_altitude: float
-    ceiling: float
-    profile: str
-
-    def as_dict(self) -> dict[str, object]:
-        """JSON-ready form, SI units (a crossover outside the model is null)."""
-        return {
-            "aircraft": self.aircraft.as_dict(), "profile": self.profile,
-            "dT_K": self.dT, "load_factor": self.load_factor,
-            "crossover_altitude_m": (self.crossover_altitude
-                                     if math.isfinite(self.crossover_altitude) else None),
-            "ceiling_m": self.ceiling,
-            "altitude_m": self.altitude.tolist(), "pressure_Pa": self.pressure.tolist(),
-            "sat_K": self.sat.tolist(),
-            "stall_light": self.stall_light.as_lists(),
-            "stall_heavy": self.stall_heavy.as_lists(),
-            "max_operating": self.max_operating.as_lists(),
-            "mach_governs": self.mach_governs.tolist(),
-            "above_ceiling": self.above_ceiling.tolist(),
-        }
-
-
-def _default_altitudes(ceiling: float) -> F64:
-    step = 2000.0 * 0.3048
-    h = np.arange(0.0, ceiling, step)
-    return np.append(h, ceiling)
-
-
-@fill_doc
-def envelope(
-    aircraft: Aircraft | str | Path, altitudes: ArrayLike | None = None, *, dT: float = 0.0,
-    load_factor: float = 1.0, profile: Profile | str | None = None,
-) -> Envelope:
-    """Table of every limit of an aircraft in CAS, EAS, TAS and Mach against altitude.
-
-    Parameters
-    ----------
-    aircraft : Aircraft or str or Path
-        The aircraft, or the path of its ``airdata-aircraft/1`` file.
-    altitudes : array_like, optional
-        Geopotential pressure altitudes of the rows, m, in [-5000, 84852]; default
-        every 2000 ft from 0 to the ceiling, the ceiling included.
-    dT : float, optional
-        Temperature deviation from the standard day, K, in [-100, 100]; changes only
-        the true airspeeds.
-    load_factor : float, optional
-        Load factor of the stall speeds, in (0, 10]; default 1.
-    {profile}
-
-    Returns
-    -------
-    Envelope
-        The table.
-
-    Raises
-    ------
-    DomainError
-        Bad altitudes, ``dT`` or ``load_factor``; an aircraft whose limits are out of
-        range; a stall speed beyond the model at some altitude.
-    AircraftFileError, OSError
-        An unreadable aircraft file.
-
-    Notes
-    -----
-    Stall speeds LIM-1 and LIM-2 at the lightest and heaviest weight (mass x g0);
-    maximum operating speeds LIM-4; crossover LIM-3; the maximum operating EAS and TAS
-    follow from its Mach number through SPD-2 and SPD-3.
-    """
-    if not isinstance(aircraft, Aircraft):
-        from .aircraft import load_aircraft
-
-        aircraft = load_aircraft(aircraft)
-    prof = get_profile(profile)
-    h = np.atleast_1d(np.asarray(
-        _default_altitudes(aircraft.ceiling) if altitudes is None else altitudes,
-        dtype=np.float64))
-    if h.ndim != 1:
-        raise ValueError("altitudes must be a one-dimensional sequence")
-    if not (np.isfinite(load_factor) and LOAD_FACTOR.lo < load_factor <= LOAD_FACTOR.hi):
-        raise DomainError("load_factor", float(load_factor), None, LOAD_FACTOR.describe(),
-                          Status.OUT_OF_RANGE if np.isfinite(load_factor) and load_factor > 0
-                          else Status.INVALID_INPUT)
-    atm = atmosphere(h, dT, profile=prof)
-    ps = np.asarray(atm.pressure)
-    sat = np.asarray(atm.temperature)
-    a = np.sqrt((GAMMA * prof.R) * sat)
-    root = np.sqrt(ps / prof.p0)
-
-    def stall(weight: float) -> SpeedSet:
-        eas = np.full_like(h, stall_eas(weight, aircraft.wing_area, aircraft.cl_max,
-                                        load_factor, profile=prof))
-        cas = np.asarray(stall_cas(weight, aircraft.wing_area, aircraft.cl_max, ps,
-                                   load_factor, profile=prof))
-        mach = np.asarray(stall_mach(weight, aircraft.wing_area, aircraft.cl_max, ps,
-                                     load_factor, profile=prof))
-        return SpeedSet(cas=cas, eas=eas, tas=mach * a, mach=mach)
-
-    w_light, w_heavy = aircraft.weights(prof.g0)
-    vmo = np.asarray(max_operating_cas(ps, aircraft.cas_limit, aircraft.mach_limit,
-                                       profile=prof))
-    mmo = np.asarray(max_operating_mach(ps, aircraft.cas_limit, aircraft.mach_limit,
-                                        profile=prof))
-    qc_cas = prof.p0 * ratio_from_mach(np.array([aircraft.cas_limit / prof.a0]))[0]
-    qc_mach = ps * ratio_from_mach(np.full_like(ps, aircraft.mach_limit))
-    hx = _envelope_crossover(aircraft.cas_limit, aircraft.mach_limit, prof)
-    mo = SpeedSet(cas=vmo, eas=prof.a0 * mmo * root, tas=mmo * a, mach=mmo)
-    return Envelope(
-        aircraft=aircraft, altitude=h, pressure=ps, sat=sat, dT=float(dT),
-        load_factor=float(load_factor), stall_light=stall(w_light),
-        stall_heavy=stall(w_heavy), max_operating=mo,
-        mach_governs=qc_mach < qc_cas,
-        above_ceiling=h > aircraft.ceiling, crossover_altitude=hx,
-        ceiling=aircraft.ceiling, profile=prof.name,
-    )
-
-
-def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
-    """Chart of the envelope: CAS and TAS against pressure altitude, with limit lines.
-
-    Parameters
-    ----------
-    env : Envelope
-        The table from :func:`envelope`; the chart is drawn on a fine column of
-        altitudes over the same range (the crossover included), not on its rows.
-    path : str or Path, optional
-        Write the chart there (format from the suffix: .png, .svg, .pdf).
-
-    Returns
-    -------
-    matplotlib.figure.Figure
-        The figure, not attached to pyplot (no backend is selected or changed).
-
-    Raises
-    ------
-    ImportError
-        matplotlib is not installed (it is an optional extra).
-    """
-    from matplotlib.figure import Figure
-
-    kt = 1852.0 / 3600.0
-    ft = 0.3048
-    # Draw on a fine column with the crossover in it, so that the corner is exact.
-    lo, hi = float(env.altitude.min()), float(env.altitude.max())
-    fine = np.union1d(np.linspace(lo, hi, 400),
-                      [env.crossover_altitude] if lo < env.crossover_altitude < hi else [])
-    env = envelope(env.aircraft, fine, dT=env.dT, load_factor=env.load_factor,
-                   profile=env.profile)
-    fig = Figure(figsize=(11.0, 6.0), layout="constrained")
-    axes = fig.subplots(1, 2, sharey=True)
-    hft = env.altitude / ft
-    for ax, key, title in ((axes[0], "cas", "calibrated airspeed"),
-                           (axes[1], "tas", "true airspeed")):
-        heavy = getattr(env.stall_heavy, key) / kt
-        light = getattr(env.stall_light, key) / kt
-        top = getattr(env.max_operating, key) / kt
-        ax.fill_betweenx(hft, heavy, top, where=top >= heavy, color="0.92", lw=0)
-        ax.plot(light, hft, "k--", lw=1.2, label="stall, lightest weight")
-        ax.plot(heavy, hft, "k-", lw=1.6, label="stall, heaviest weight")
-        ax.plot(top, hft, color="tab:blue", lw=1.8, label="maximum operating speed")
-        ax.axhline(env.ceiling / ft, color="tab:red", lw=1.0, ls="-.",
-                   label="maximum altitude")
-        if np.isfinite(env.crossover_altitude):
-            ax.axhline(env.crossover_altitude / ft, color="tab:blue", lw=0.8, ls=":",
-                       label="CAS/Mach crossover")
-        ax.set_xlabel(f"{title}, kt")
-        ax.set_title(f"{key.upper()} limits")
-        ax.grid(True, lw=0.4, color="0.8")
-    axes[0].set_ylabel("pressure altitude, ft")
-    axes[0].legend(loc="center", fontsize=8, frameon=False)
-    fig.suptitle(f"Speed envelope: {env.aircraft.name} (profile {env.profile}, "
-                 f"ISA {env.dT:+.0f} K, n = {env.load_factor:g})")
-    if path is not None:
-        fig.savefig(path, dpi=120)
-    return fig
