@@ -21,6 +21,7 @@ import pytest
 
 import airdata.pitot as pitot
 from airdata import bench
+from airdata.bench import common, lines_numpy, lines_scalar
 
 #: Lines of the report and the goal set for each (None: for information).
 EXPECTED_GOALS: dict[str, tuple[str, float] | None] = {
@@ -34,7 +35,7 @@ EXPECTED_GOALS: dict[str, tuple[str, float] | None] = {
     "6b": None,            # solver instructions: state it
     "7a": ("<", 30.0),     # vector suite in under 30 s
     "7b": ("<", 500.0),    # and under 500 MB
-    "8": ("<=", bench.FLAT_LIMIT),  # flat memory over chunks
+    "8": ("<=", common.FLAT_LIMIT),  # flat memory over chunks
     "9a": ("<=", 2.0),     # reduce CSV -> CSV within 2x pyarrow's read + write
     "9b": ("<=", 2.0),     # reduce CSV -> Parquet within 2x pyarrow's read + write
     "10a": ("<=", 3.0),    # scalar pressure_altitude within 3x a careful pure-Python one
@@ -62,7 +63,7 @@ def test_pure_python_peer_computes_pressure_altitude() -> None:
     bases = list(zip(prof.layer_base, prof.base_pressure, prof.base_temperature,
                      prof.lapse_rate, strict=True))[::-1]
     for ps in np.geomspace(1.0, 170000.0, 400):
-        got = bench._python_pressure_altitude(float(ps), bases, prof.R, prof.g0)
+        got = lines_scalar._python_pressure_altitude(float(ps), bases, prof.R, prof.g0)
         assert got == pytest.approx(pressure_altitude(float(ps)), rel=1e-12, abs=1e-9)
 
 
@@ -119,7 +120,7 @@ def test_histogram_sums_to_the_sample_count(quick_run: tuple[dict[str, Any], str
     h = report["histogram"]
     assert h["samples"] == bench.SIZES["quick"]["hist"]
     assert sum(h["counts"].values()) == h["samples"]
-    assert set(h["counts"]) == {str(k) for k in range(1, bench.HIST_STEPS + 1)}
+    assert set(h["counts"]) == {str(k) for k in range(1, common.HIST_STEPS + 1)}
     assert h["shipped_steps"] == pitot.NEWTON_STEPS
 
 
@@ -151,17 +152,17 @@ def test_histogram_restores_the_shipped_step_count() -> None:
     shipped = pitot.NEWTON_STEPS
     m = np.linspace(1.0 + 1e-9, 10.0, 2001)
     r = 1.0 + pitot.ratio_from_mach(m)
-    h = bench._histogram(r, pitot)
+    h = lines_numpy._histogram(r, pitot)
     assert pitot.NEWTON_STEPS == shipped
     assert sum(h["counts"].values()) == r.size
-    assert h["counts"][str(bench.HIST_STEPS)] == 0
+    assert h["counts"][str(common.HIST_STEPS)] == 0
 
 
 def test_line_verdicts_and_skipped_lines_in_the_table() -> None:
-    ok = bench._line("1", "a", 1.5, "x floor", "<=", 2.0)
-    bad = bench._line("2", "b", 7.0, "x floor", "<=", 6.0)
-    info = bench._line("5a", "c", 1.7, "x faster", None, None)
-    gone = bench._missing("3", "d", "x faster", ">=", 50.0, "fluids not installed")
+    ok = common._line("1", "a", 1.5, "x floor", "<=", 2.0)
+    bad = common._line("2", "b", 7.0, "x floor", "<=", 6.0)
+    info = common._line("5a", "c", 1.7, "x faster", None, None)
+    gone = common._missing("3", "d", "x faster", ">=", 50.0, "fluids not installed")
     assert (ok["met"], bad["met"], info["met"], gone["met"]) == (True, False, None, None)
     report = {"version": "0", "quick": True, "seed": 1, "sizes": {"n": 10, "repeats": 1},
               "machine": {"cpu": "x", "cores": 1, "python": "3", "numpy": "2",
