@@ -10,6 +10,12 @@ __all__ = ["CURRENT", "ENTRIES", "POLICY", "changelog_text", "readme_text"]
 
 #: (suite version, schema version, what changed) - newest first.
 ENTRIES: tuple[tuple[str, int, tuple[str, ...]], ...] = (
+    ("3.2.0", 1, (
+        "Minor: cases added, existing cases unchanged. Windows around two switches no "
+        "case looked at: qc/ps at 2^-60, where PIT-2 turns linear "
+        "(mach_from_impact_pressure), and each limit of max_operating_cas/mach at Mach "
+        "2^-40 with the other one tiny (the switch of the linear LIM-4).",
+    )),
     ("3.1.0", 1, (
         "Minor: cases added, existing cases unchanged. The elevation's range ends of "
         "altimeter_setting at the pressure of that elevation (the generic range-end cases "

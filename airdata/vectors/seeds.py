@@ -67,6 +67,9 @@ def extra_mach_from_qc(p: Profile) -> list[CaseSeed]:
             seeds.append(CaseSeed({"qc": v, "ps": float(ps)}, ("derived-limit", "extreme")))
     for ps in [p.p0, 1000.0]:
         seeds.append(CaseSeed({"qc": 1e-6, "ps": ps}, ("tiny",)))
+    # qc/ps at 2^-60, where PIT-2 switches to its linear form, in a window either side.
+    for v in window(2.0**-60 * p.p0):
+        seeds.append(CaseSeed({"qc": v, "ps": p.p0}, ("tiny", "seam-window")))
     for v in (1e-305, 1e-310, 5e-324):  # near and below underflow
         seeds.append(CaseSeed({"qc": v, "ps": 54019.9}, ("tiny", "extreme")))
     return seeds
@@ -454,6 +457,13 @@ def extra_max_operating(p: Profile) -> list[CaseSeed]:
         seeds.append(CaseSeed({"ps": p.p0, "cas_limit": v, "mach_limit": 0.8},
                               ("derived-limit", "extreme")))
     seeds.append(CaseSeed({"ps": p.p0, "cas_limit": 1e-6, "mach_limit": 1e-8}, ("tiny",)))
+    # Each limit in a window around Mach 2^-40 (the switch to the linear forms) with the
+    # other one tiny: the switch of "both tiny" moves by the window's offsets.
+    for v in window(2.0**-40):
+        seeds.append(CaseSeed({"ps": 0.25 * p.p0, "cas_limit": 2.0**-42 * p.a0,
+                               "mach_limit": v}, ("tiny", "seam-window")))
+        seeds.append(CaseSeed({"ps": 0.25 * p.p0, "cas_limit": v * p.a0,
+                               "mach_limit": 2.0**-42}, ("tiny", "seam-window")))
     # Below Mach 2^-40: either limit governing, the other one not tiny or tiny too.
     # (1e-16, 1e-15): CAS governs with both tiny and normal in binary32 too.
     for cas, m in ((1.0e-150, 1.0e-155), (1.0e-160, 1.0e-150), (1.0e-13, 5.0e-16),

@@ -13,7 +13,7 @@
 
 #include <math.h>
 
-#define AD_VEC_SUITE_VERSION "3.1.0"
+#define AD_VEC_SUITE_VERSION "3.2.0"
 #define AD_VEC_PROFILE "us1976"
 #define AD_VEC_PROFILE_US1976 1
 #define AD_VEC_K 8.0
