@@ -132,47 +132,14 @@ def test_every_vector_case_against_the_oracle(name: str) -> None:
 # ----------------------------------------------------------------------------- statuses
 # at a derived limit, against exact arithmetic
 
-def _near_limit_disagreements(
-    name: str, ranges: dict[str, Any], derived: Any, ends: tuple[float, float],
-    natural: tuple[float, float],
-) -> tuple[int, list[tuple[str, float, int]]]:
-    """Cases of ``name`` with inputs in ``ranges`` whose exact derived quantity
-    (``derived(x)``, 50 digits) lies within 1e-9 relative of a ``natural`` end: their
-    count, and those whose expected status is not exact arithmetic's against ``ends``
-    (the float limits of the check: OK inside, OUT_OF_RANGE = 2 outside)."""
-    near = 0
-    disagree = []
-    for case in _doc(name)["cases"]:
-        x = {k: _val(v) for k, v in case["inputs"].items()}
-        if not all(math.isfinite(x[k]) and d.lo <= x[k] <= d.hi for k, d in ranges.items()):
-            continue
-        value = derived(x)
-        if min(abs(value / natural[0] - 1), abs(value / natural[1] - 1)) > 1e-9:
-            continue
-        near += 1
-        want = OK if ends[0] <= value <= ends[1] else 2
-        if case["status"] != want:
-            disagree.append((case["id"], float(value), case["status"]))
-    print(f"\n{name}: {near} cases within 1e-9 relative of a derived limit; "
-          f"{len(disagree)} disagree with exact arithmetic")
-    return near, disagree
-
-
 def test_altimeter_setting_statuses_at_the_derived_limits_against_exact_arithmetic() -> None:
     # The setting's derived check is on its pressure altitude H(ps) - elevation, valid in
     # [-5000, 11000] m widened by 8 eps (airdata._domains.setting_altitude).  For every
     # case with valid inputs whose exact H(ps) - elevation (the 50-digit oracle) lies within
     # 1e-9 relative of an end of [-5000, 11000] m, the expected status must be the one exact
     # arithmetic gives against those (float) ends.  Before suite 3.0.0, 13 of 59 did not.
-    from airdata import _domains as dom
-    from airdata.profiles import get_profile
-
-    prof = get_profile("icao")
-    ends = dom.setting_altitude(prof)
-    near, disagree = _near_limit_disagreements(
-        "altimeter_setting", {"ps": dom.setting(prof), "elevation": dom.ELEVATION},
-        lambda x: oracle.pressure_altitude(x["ps"]) - oracle.mp.mpf(x["elevation"]),
-        (ends.lo, ends.hi), (prof.h_min, prof.layer_base[1]))
+    near, disagree = _derived_disagreements("altimeter_setting",
+                                            _doc("altimeter_setting")["cases"])
     assert near > 50
     assert disagree == []
 
@@ -183,26 +150,20 @@ def test_density_altitude_statuses_at_the_density_limits_against_exact_arithmeti
     # Every case with valid inputs whose exact density (50 digits, R of ICAO Doc 7488/3
     # from the oracle's profile) lies within 1e-9 relative of an end expects the status of
     # exact arithmetic.  Before suite 3.0.0, 1 of 12 did not.
-    from airdata import _domains as dom
-    from airdata.altimetry import density_range
-    from airdata.profiles import get_profile
-
-    prof = get_profile("icao")
-    lo, hi = density_range(prof)
-    mp, r = oracle.mp, oracle.PROFILES["icao"].R
-    near, disagree = _near_limit_disagreements(
-        "density_altitude", {"ps": dom.pressure(prof), "sat": dom.TEMPERATURE},
-        lambda x: mp.mpf(x["ps"]) / (r * mp.mpf(x["sat"])), (lo, hi), (lo, hi))
+    near, disagree = _derived_disagreements("density_altitude",
+                                            _doc("density_altitude")["cases"])
     assert near >= 10
     assert disagree == []
 
 
-# Every other derived check, table-driven: (function, the exact derived quantities of a
-# case as (value, float low end, float high end, natural end)).  A case is near when one
-# value lies within 1e-9 relative of its natural end (the exact limit: Mach 10, the
-# pitot ratio at Mach 10 (NACA Report 1135 eq. 100 in the oracle), EAS 4000 m/s, the
-# model's pressure range); its expected status must then be exact arithmetic's against
-# the float ends the reference checks (OK when every value is inside).
+# Every derived check, table-driven (the two tests above add their case counts):
+# function -> the exact derived quantities of a case as (value, float low end, float
+# high end, natural end).  A case is near when one value lies within 1e-9 relative of
+# its natural end (the exact limit: Mach 10, the pitot ratio at Mach 10 (NACA Report
+# 1135 eq. 100 in the oracle), EAS 4000 m/s, the model's pressure range, the setting
+# altitude's [-5000, 11000] m, the model's densities); its expected status must then be
+# exact arithmetic's against the float ends the reference checks (OK when every value
+# is inside).
 _CHECKS_INF = float("inf")
 
 
@@ -213,7 +174,8 @@ def _derived_checks() -> dict[str, Any]:
 
     mp = oracle.mp
     p = oracle.PROFILES["icao"]
-    prange = dom.pressure(get_profile("icao"))
+    prof = get_profile("icao")
+    prange = dom.pressure(prof)
     r10 = oracle.pitot_ratio(10)
     ninf = -_CHECKS_INF
 
@@ -236,6 +198,18 @@ def _derived_checks() -> dict[str, Any]:
         return [mach(mp.mpf(x["cas_limit"]) / p.a0, dom.MACH_MAX),
                 (ps, prange.lo, prange.hi, mp.mpf(prange.lo)),
                 (ps, prange.lo, prange.hi, mp.mpf(prange.hi))]
+
+    def setting(x: dict[str, float]) -> list[tuple[Any, float, float, Any]]:
+        ends = dom.setting_altitude(prof)
+        v = oracle.pressure_altitude(x["ps"]) - mp.mpf(x["elevation"])
+        return [(v, ends.lo, ends.hi, mp.mpf(prof.h_min)),
+                (v, ends.lo, ends.hi, mp.mpf(prof.layer_base[1]))]
+
+    def density(x: dict[str, float]) -> list[tuple[Any, float, float, Any]]:
+        from airdata.altimetry import density_range
+        lo, hi = density_range(prof)
+        rho = mp.mpf(x["ps"]) / (p.R * mp.mpf(x["sat"]))
+        return [(rho, lo, hi, mp.mpf(lo)), (rho, lo, hi, mp.mpf(hi))]
 
     def chain(x: dict[str, float]) -> list[tuple[Any, float, float, Any]]:
         from airdata.altimetry import density_range
@@ -267,6 +241,8 @@ def _derived_checks() -> dict[str, Any]:
         "max_operating_cas": lambda x: [mach(mp.mpf(x["cas_limit"]) / p.a0, dom.MACH_MAX)],
         "max_operating_mach": lambda x: [mach(mp.mpf(x["cas_limit"]) / p.a0, dom.MACH_MAX)],
         "air_data": chain,
+        "altimeter_setting": setting,
+        "density_altitude": density,
     }
 
 
@@ -299,7 +275,7 @@ def _derived_disagreements(name: str, cases: list[dict[str, Any]]) -> tuple[int,
 
 
 @pytest.mark.parametrize("name", sorted(_derived_checks()))
-def test_statuses_at_every_other_derived_limit_against_exact_arithmetic(name: str) -> None:
+def test_statuses_at_every_derived_limit_against_exact_arithmetic(name: str) -> None:
     near, disagree = _derived_disagreements(name, _doc(name)["cases"])
     print(f"\n{name}: {near} cases within 1e-9 relative of a derived limit; "
           f"{len(disagree)} disagree with exact arithmetic")

@@ -5,12 +5,17 @@ from __future__ import annotations
 from typing import Any
 
 import numpy as np
-from numpy.typing import NDArray
 
-from .common import HIST_STEPS, SEED, _alternate, _line, _missing, _pressures, _supersonic
-
-F64 = NDArray[np.float64]
-
+from .common import (
+    F64,
+    HIST_STEPS,
+    SEED,
+    _alternate,
+    _line,
+    _missing,
+    _pressures,
+    _supersonic,
+)
 
 # --------------------------------------------------------------------------- lines 1, 2, 4
 
