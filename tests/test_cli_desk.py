@@ -15,7 +15,7 @@ import sys
 import fluids
 import pytest
 
-from airdata.commands.quantities import parse_quantity
+from airdata.cli.quantities import parse_quantity
 
 # ICAO Doc 7488/3 sea-level and tropopause values (from memory).
 P0 = 101325.0          # Pa
@@ -293,7 +293,7 @@ def test_flight_levels_are_altitudes() -> None:
 
 
 def test_no_negative_zero_and_a_quiet_broken_pipe() -> None:
-    from airdata.commands.quantities import format_value
+    from airdata.cli.quantities import format_value
 
     assert format_value(-0.001, "K") == "0.00" and format_value(-0.2, "ft") == "0"
     assert format_value(-0.01, "K") == "-0.01"

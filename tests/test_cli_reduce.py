@@ -21,7 +21,7 @@ import pytest
 
 import airdata
 from airdata import units as u
-from airdata.commands.reduce import RESOLUTION_DECIMALS
+from airdata.cli.reduce import RESOLUTION_DECIMALS
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "examples" / "demo_flight.csv"

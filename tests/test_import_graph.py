@@ -116,3 +116,40 @@ def test_relative_import_resolution(tmp_path: Path) -> None:
     assert "pkg.sub.b" in g["pkg.a"] or "pkg.sub" in g["pkg.a"]
     assert "pkg.a" in g["pkg.sub.b"]
     assert find_cycles(g)
+
+
+def _imports_argparse(path: Path) -> bool:
+    for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+        if isinstance(node, ast.Import) and any(a.name == "argparse" for a in node.names):
+            return True
+        if isinstance(node, ast.ImportFrom) and node.module == "argparse":
+            return True
+    return False
+
+
+def test_command_line_is_one_layer_on_top() -> None:
+    # The layers are the folders: airdata/cli holds every command; nothing below it
+    # imports the command line (but ``python -m airdata``, airdata/__main__.py, which
+    # starts it), and only it parses arguments (argparse).
+    graph = import_graph()
+    cli = {m for m in graph if m == "airdata.cli" or m.startswith("airdata.cli.")}
+    cli.add("airdata.__main__")
+    assert {"airdata.cli.port", "airdata.cli.reduce", "airdata.cli.vectors"} <= cli
+    upward = sorted(f"{m} -> {t}" for m, ts in graph.items() if m not in cli
+                    for t in ts if t in cli)
+    assert upward == []
+    parsers = sorted(str(p.relative_to(PKG)) for p in PKG.rglob("*.py")
+                     if _imports_argparse(p) and "cli" not in p.relative_to(PKG).parts)
+    assert parsers == []
+
+
+def test_layer_check_sees_an_upward_import(tmp_path: Path) -> None:
+    # negative control of the test above: a library module importing the command line
+    pkg = tmp_path / "airdata"
+    (pkg / "cli").mkdir(parents=True)
+    (pkg / "__init__.py").write_text("")
+    (pkg / "cli" / "__init__.py").write_text("import argparse\n")
+    (pkg / "physics.py").write_text("from .cli import main\n")
+    g = import_graph(pkg)
+    assert "airdata.cli" in g["airdata.physics"]
+    assert _imports_argparse(pkg / "cli" / "__init__.py")

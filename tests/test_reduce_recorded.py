@@ -395,8 +395,8 @@ def test_negative_value_taken_as_option_says_how_to_write_it() -> None:
 
 
 def test_negative_values_need_no_argparse_internals() -> None:
-    from airdata.commands import quantities
-    from airdata.commands.quantities import _join_negative_values
+    from airdata.cli import quantities
+    from airdata.cli.quantities import _join_negative_values
 
     assert "_negative_number_matcher" not in inspect.getsource(quantities)
     opts = {"--tat", "--ps", "-o"}

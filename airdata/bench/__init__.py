@@ -36,26 +36,21 @@ An engineering and verification aid, not certified flight software.
 
 from __future__ import annotations
 
-import argparse
-import json
 import os
 import platform
-import sys
 import time
 from collections.abc import Callable
-from pathlib import Path
 from typing import Any
 
 import numpy as np
 
-from ..notice import CAUTION
 from .common import FLAT_LIMIT, ROUNDS, SEED, SIZES, _missing, chain_inputs
 from .lines_numpy import _brentq_line, _floor_and_reference, _fluids_line
 from .lines_port import _callgrind_lines, _port_lines
 from .lines_process import _chunk_line, _reduce_lines, _suite_lines
 from .lines_scalar import _scalar_lines
 
-__all__ = ["SEED", "SIZES", "chain_inputs", "run_bench", "format_table", "register"]
+__all__ = ["SEED", "SIZES", "chain_inputs", "run_bench", "format_table"]
 
 
 # --------------------------------------------------------------------------- driver
@@ -214,36 +209,3 @@ def format_table(report: dict[str, Any]) -> str:
     goals = sum(1 for ln in report["lines"] if ln["goal"] is not None)
     out.append(f"goals met: {met} of {goals}; run took {report['seconds']:.1f} s")
     return "\n".join(out)
-
-
-def _cmd_bench(args: argparse.Namespace) -> int:
-    def say(msg: str) -> None:
-        print(f"bench: {msg}", file=sys.stderr, flush=True)
-
-    report = run_bench(quick=args.quick, progress=None if args.silent else say)
-    print(format_table(report))
-    if args.json:
-        text = json.dumps(report, indent=1, allow_nan=False) + "\n"
-        if args.json == "-":
-            sys.stdout.write(text)
-        else:
-            Path(args.json).write_text(text, encoding="utf-8")
-    return 0
-
-
-def register(subparsers: Any) -> None:
-    """Add the ``bench`` sub-command to the ``airdata`` parser."""
-
-    p = subparsers.add_parser(
-        "bench", help="measure speed and memory of the reference and the C port",
-        description="Time the reference against its floors and peers and the C port "
-                    "against the reference, as ratios measured side by side in one run "
-                    "on the same seeded inputs; count the port's instructions with "
-                    "callgrind; measure vector-suite build time and peak memory.",
-        epilog=CAUTION)
-    p.add_argument("--quick", action="store_true",
-                   help="smaller sizes (about 1e5 points): a run of well under 30 s")
-    p.add_argument("--json", metavar="FILE", default=None,
-                   help="also write the report as JSON to FILE ('-' for stdout)")
-    p.add_argument("--silent", action="store_true", help="no progress messages on stderr")
-    p.set_defaults(func=_cmd_bench)

@@ -33,9 +33,8 @@ says), and optionally against the user's accuracy requirements.  Modules:
   ``report.schema.json``), JUnit XML, CSV of failures, HTML page and plots;
 - :mod:`~airdata.portcheck.coverage`: MC/DC, branch, line and region coverage of a
   port by the suite (clang 19, ``airdata port coverage``);
-- :mod:`~airdata.portcheck.copy`: ``airdata port copy``, the bundled port into a
-  firmware tree;
-- :mod:`~airdata.portcheck.commands`: the ``airdata port`` command line.
+- the ``airdata port`` command line (``check``, ``verify``, ``copy``, ``coverage``) is
+  :mod:`airdata.cli.port` with :mod:`airdata.cli.copy` and :mod:`airdata.cli.port_coverage`.
 """
 
 from __future__ import annotations

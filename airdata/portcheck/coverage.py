@@ -26,25 +26,23 @@ this tool are evidence for a review, not a coverage analysis under a certificati
 
 from __future__ import annotations
 
-import argparse
 import json
 import os
 import shutil
 import subprocess
-import sys
 import tempfile
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
+from ..notice import CAUTION_LINE
 from .build import BUNDLED_C, PRECISIONS, PortBuildError
-from .suite import FunctionCases, SuiteError, load_cases
+from .suite import FunctionCases, load_cases
 
 __all__ = ["MCDC_FLAGS", "KINDS", "CoverageError", "Figures", "Toolchain", "find_toolchain",
            "measure", "merge_profiles", "coverage_of_sources", "runner_path",
-           "defined_symbols", "batch_symbols", "tool_versions", "render", "add_parser",
-           "cmd_coverage"]
+           "defined_symbols", "batch_symbols", "tool_versions", "render"]
 
 #: Compile flags of an instrumented build (clang 19: MC/DC needs -fcoverage-mcdc).
 MCDC_FLAGS = ("-std=c99", "-O0", "-ffp-contract=off", "-fprofile-instr-generate",
@@ -472,91 +470,5 @@ def render(label: str, figures: dict[str, Figures], max_missed: int = 200,
                 rows.append(f"  ... {len(fig.missed) - max_missed} more (see --report)")
     if not final.missed:
         rows.append("every region, line, branch and MC/DC condition is exercised")
-    rows.append("Coverage only: run 'airdata port check' to judge the outputs. "
-                "An engineering and verification aid, not certified flight software.")
+    rows.append(f"Coverage only: run 'airdata port check' to judge the outputs. {CAUTION_LINE}")
     return "\n".join(rows)
-
-
-def cmd_coverage(args: argparse.Namespace) -> int:
-    """Run ``airdata port coverage``; exit 0, 1 (below --fail-under) or 2 (cannot run, or
-    the run stopped before its end)."""
-    if args.source:
-        sources = [Path(s) for s in args.source]
-        label = " ".join(args.source)
-        includes = [Path(p) for p in args.include]
-    else:
-        sources = sorted((BUNDLED_C / "src").glob("*.c"))
-        label = "bundled"
-        includes = [Path(p) for p in args.include] + [BUNDLED_C / "src"]
-    precisions = ["double", "single"] if args.precision == "both" else [args.precision]
-    batch = {"auto": None, "yes": True, "no": False}[args.batch]
-    try:
-        tools = find_toolchain()
-        figures = coverage_of_sources(sources, args.suite, precisions, includes,
-                                      list(args.define), args.only or None, tools=tools,
-                                      batch=batch)
-    except (CoverageError, SuiteError, PortBuildError, ValueError) as exc:
-        print(f"airdata port coverage: error: {exc}", file=sys.stderr)
-        return 2
-    versions = tool_versions(tools)
-    print(render(label, figures, versions=versions))
-    final = figures.get("both") or figures[precisions[0]]
-    if args.report:
-        doc = {"tool": "airdata port coverage", "label": label,
-               "disclaimer": "An engineering and verification aid, not certified flight "
-                             "software; coverage figures are evidence for a review.",
-               "tool_versions": versions, "sources": [str(s) for s in sources],
-               "flags": list(MCDC_FLAGS), "suite": str(args.suite),
-               "measurements": {k: f.as_dict() for k, f in figures.items()}}
-        Path(args.report).write_text(json.dumps(doc, indent=1) + "\n")
-        print(f"report written to {args.report}")
-    if any(n.startswith("INCOMPLETE") for f in figures.values() for n in f.notes):
-        print("airdata port coverage: the run stopped before its end (see the notes)",
-              file=sys.stderr)
-        return 2
-    if args.fail_under is not None and final.percent("mcdc") < args.fail_under:
-        print(f"MC/DC {final.percent('mcdc'):.2f}% is below --fail-under {args.fail_under}",
-              file=sys.stderr)
-        return 1
-    return 0
-
-
-def add_parser(sub: Any, define_type: Any, epilog: str) -> None:
-    """Add the ``coverage`` action to the ``port`` sub-parsers."""
-    c = sub.add_parser(
-        "coverage", help="MC/DC, branch, line and region coverage of a C port by the vectors",
-        description="Compile a C port with clang 19 source-based coverage and MC/DC "
-                    "(-fprofile-instr-generate -fcoverage-mapping -fcoverage-mcdc), run every "
-                    "case of the suite through it with the vector runner in each precision (scalar "
-                    "functions, NULL rules, and the batch entry points when the sources "
-                    "define them), and report the covered "
-                    "regions, lines, branches and MC/DC conditions, listing by file:line what "
-                    "no vector exercises. Needs clang-19, llvm-profdata-19 and llvm-cov-19 "
-                    "(Debian: clang-19 llvm-19 libclang-rt-19-dev). Without --source the "
-                    "bundled port is measured. Exit status 0: measured; 1: MC/DC below "
-                    "--fail-under; 2: could not run, or the run stopped early. An engineering and "
-                    "verification aid, not certified flight software.",
-        epilog=epilog)
-    c.add_argument("--suite", default="vectors", metavar="DIR",
-                   help="vector suite directory (default: ./vectors)")
-    c.add_argument("--precision", choices=["double", "single", "both"], default="both",
-                   help="binary64 (double), binary32 (single) or both (default)")
-    c.add_argument("--source", nargs="+", metavar="FILE.c",
-                   help="your port's C sources (they implement airdata.h); only these are "
-                        "measured")
-    c.add_argument("--include", action="append", default=[], metavar="DIR",
-                   help="extra include directory (repeatable); the bundled airdata.h is "
-                        "searched last")
-    c.add_argument("--define", action="append", default=[], type=define_type,
-                   metavar="NAME[=V]", help="preprocessor definition (repeatable)")
-    c.add_argument("--batch", choices=["auto", "yes", "no"], default="auto",
-                   help="drive the batch entry points of airdata_batch.h: when the sources "
-                        "define all of them (auto, default), always, or never")
-    c.add_argument("--only", nargs="+", metavar="FUNC",
-                   help="run only these functions' cases (reference names)")
-    c.add_argument("--report", metavar="FILE.json", help="write the figures and the list "
-                                                         "of what is missed as JSON")
-    c.add_argument("--fail-under", type=float, default=None, metavar="PCT",
-                   help="exit 1 when the MC/DC percentage (both precisions together) is "
-                        "below PCT")
-    c.set_defaults(func=cmd_coverage)

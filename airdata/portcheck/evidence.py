@@ -10,7 +10,6 @@ An engineering and verification aid, not certified flight software.
 
 from __future__ import annotations
 
-import argparse
 import base64
 import csv
 import datetime as _dt
@@ -35,9 +34,9 @@ from .. import __version__
 from ..notice import CAUTION
 from .verdict import LEVEL_REFERENCE, LEVEL_REQUIREMENTS, PRECISION_LABEL, FunctionVerdict, Report
 
-__all__ = ["CAUTION", "add_report_options", "environment", "report_json", "report_schema",
+__all__ = ["CAUTION", "environment", "report_json", "report_schema",
            "render_summary", "write_junit", "write_failures", "write_html", "write_plots",
-           "write_outputs", "sha256_file", "equation_table", "REPORT_FORMAT"]
+           "sha256_file", "equation_table", "REPORT_FORMAT"]
 
 REPORT_FORMAT = "airdata-port-report-1"
 _MAX = 300
@@ -70,30 +69,6 @@ def sha256_file(path: str | Path) -> str:
         for block in iter(lambda: f.read(1 << 16), b""):
             h.update(block)
     return h.hexdigest()
-
-
-def add_report_options(parser: argparse.ArgumentParser) -> None:
-    """Add --requirements, --report, --junit, --html, --failures and --plot to ``parser``.
-
-    The values are read by :func:`write_outputs`; ``--requirements`` by the caller
-    (:func:`airdata.portcheck.requirements.load_requirements`).
-    """
-    parser.add_argument("--requirements", metavar="FILE.toml",
-                        help="judge against these accuracy requirements (engineering units "
-                             "over an envelope, docs/requirements.md); without it the "
-                             "reference-equivalent roundoff bound decides")
-    parser.add_argument("--report", metavar="FILE.json",
-                        help="write the JSON evidence report (schema: "
-                             "airdata/portcheck/report.schema.json)")
-    parser.add_argument("--junit", metavar="FILE.xml",
-                        help="write JUnit XML, one test case per function and output")
-    parser.add_argument("--html", metavar="FILE.html",
-                        help="write one self-contained HTML evidence page")
-    parser.add_argument("--failures", metavar="FILE.csv",
-                        help="write every failing case as CSV (no cap)")
-    parser.add_argument("--plot", metavar="DIR",
-                        help="write error-over-envelope plots per function and output "
-                             "(needs matplotlib: pip install airdata[plot])")
 
 
 def _compiler_version(cc: str) -> str:
@@ -562,27 +537,3 @@ def write_html(reports: Sequence[Report], env: dict[str, Any], path: str | Path)
     h.append("</table>")
     h.append(f"<p>{_esc(CAUTION, 1000)}</p></body></html>")
     Path(path).write_text("\n".join(h) + "\n", encoding="utf-8")
-
-
-def write_outputs(args: argparse.Namespace, reports: Sequence[Report],
-                  env: dict[str, Any]) -> list[str]:
-    """Write every file the options of :func:`add_report_options` ask for; returns
-    the lines to print (what was written)."""
-    said = []
-    if getattr(args, "report", None):
-        doc = report_json(reports, env)
-        Path(args.report).write_text(json.dumps(doc, indent=1) + "\n", encoding="utf-8")
-        said.append(f"report written to {args.report}")
-    if getattr(args, "junit", None):
-        write_junit(reports, args.junit)
-        said.append(f"JUnit XML written to {args.junit}")
-    if getattr(args, "failures", None):
-        n = write_failures(reports, args.failures)
-        said.append(f"{n} failing case row(s) written to {args.failures}")
-    if getattr(args, "html", None):
-        write_html(reports, env, args.html)
-        said.append(f"HTML evidence written to {args.html}")
-    if getattr(args, "plot", None):
-        paths = write_plots(reports, args.plot)
-        said.append(f"{len(paths)} plot(s) written to {args.plot}")
-    return said

@@ -76,7 +76,7 @@ class UserPort:
     Parameters
     ----------
     spec : PortSpec
-        What to compile (:func:`airdata.portcheck.commands.port_spec`).
+        What to compile (:func:`airdata.cli.port.port_spec`).
     precision : {"double", "single"}
         binary64 or binary32 build (``-DAIRDATA_SINGLE``).
 

@@ -1,6 +1,6 @@
 """Planning a reduction: which columns of a recorded series hold the inputs, in which
 units, which outputs are written under which headers, and which recorded outputs are
-compared (see :mod:`airdata.commands.reduce` for the file conventions).
+compared (see :mod:`airdata.cli.reduce` for the file conventions).
 
 An engineering and verification aid, not certified flight software.
 """

@@ -29,6 +29,7 @@ from numpy.typing import NDArray
 
 from .. import __version__
 from .._inputs import Domain
+from ..notice import CAUTION_LINE
 from ..profiles import Profile, get_profile
 from ..status import Status
 from . import history
@@ -377,7 +378,7 @@ def suite_files(profile: Profile | str | None = None,
         "suite_version": SUITE_VERSION,
         "schema_version": SCHEMA_VERSION,
         "generator": {"package": "airdata", "version": __version__},
-        "caution": "An engineering and verification aid, not certified flight software.",
+        "caution": CAUTION_LINE,
         "profile": prof.as_dict(),
         "statuses": statuses_block(),
         "tolerance": tolerance_block(),

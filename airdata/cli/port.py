@@ -9,28 +9,84 @@ An engineering and verification aid, not certified flight software.
 from __future__ import annotations
 
 import argparse
+import json
 import sys
+from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
+from ..notice import CAUTION
+from ..portcheck.build import PortBuildError, PortSpec, build_port, bundled_port
+from ..portcheck.evidence import (
+    environment,
+    render_summary,
+    report_json,
+    write_failures,
+    write_html,
+    write_junit,
+    write_plots,
+)
+from ..portcheck.requirements import RequirementsError, load_requirements
+from ..portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load_cases
+from ..portcheck.verdict import PRECISION_LABEL, Report, judge
 from ..vectors.catalogue import CATALOGUE
-from .build import PortBuildError, PortSpec, build_port, bundled_port
-from .evidence import add_report_options, environment, render_summary, write_outputs
-from .requirements import RequirementsError, load_requirements
-from .suite import FunctionCases, LoadedSuite, SuiteError, load_cases
-from .verdict import PRECISION_LABEL, Report, judge
 
 _CATALOGUE_NAMES = {s.name for s in CATALOGUE}
 
 __all__ = ["register", "cmd_check", "cmd_verify"]
 
-_CAUTION = ("airdata is an engineering and verification aid, not certified flight software. "
-            "Flight software follows its own certification basis (for example DO-178C) and "
-            "the authority's rules; local regulations and licensed practice take precedence.")
 
 
 #: The preprocessor switch of the us1976 constants (airdata.h).
 _US1976 = "AIRDATA_PROFILE_US1976"
+
+
+def add_report_options(parser: argparse.ArgumentParser) -> None:
+    """Add --requirements, --report, --junit, --html, --failures and --plot to ``parser``.
+
+    The values are read by :func:`write_outputs`; ``--requirements`` by the caller
+    (:func:`airdata.portcheck.requirements.load_requirements`).
+    """
+    parser.add_argument("--requirements", metavar="FILE.toml",
+                        help="judge against these accuracy requirements (engineering units "
+                             "over an envelope, docs/requirements.md); without it the "
+                             "reference-equivalent roundoff bound decides")
+    parser.add_argument("--report", metavar="FILE.json",
+                        help="write the JSON evidence report (schema: "
+                             "airdata/portcheck/report.schema.json)")
+    parser.add_argument("--junit", metavar="FILE.xml",
+                        help="write JUnit XML, one test case per function and output")
+    parser.add_argument("--html", metavar="FILE.html",
+                        help="write one self-contained HTML evidence page")
+    parser.add_argument("--failures", metavar="FILE.csv",
+                        help="write every failing case as CSV (no cap)")
+    parser.add_argument("--plot", metavar="DIR",
+                        help="write error-over-envelope plots per function and output "
+                             "(needs matplotlib: pip install airdata[plot])")
+
+
+def write_outputs(args: argparse.Namespace, reports: Sequence[Report],
+                  env: dict[str, Any]) -> list[str]:
+    """Write every file the options of :func:`add_report_options` ask for; returns
+    the lines to print (what was written)."""
+    said = []
+    if getattr(args, "report", None):
+        doc = report_json(reports, env)
+        Path(args.report).write_text(json.dumps(doc, indent=1) + "\n", encoding="utf-8")
+        said.append(f"report written to {args.report}")
+    if getattr(args, "junit", None):
+        write_junit(reports, args.junit)
+        said.append(f"JUnit XML written to {args.junit}")
+    if getattr(args, "failures", None):
+        n = write_failures(reports, args.failures)
+        said.append(f"{n} failing case row(s) written to {args.failures}")
+    if getattr(args, "html", None):
+        write_html(reports, env, args.html)
+        said.append(f"HTML evidence written to {args.html}")
+    if getattr(args, "plot", None):
+        paths = write_plots(reports, args.plot)
+        said.append(f"{len(paths)} plot(s) written to {args.plot}")
+    return said
 
 
 def _define(text: str) -> tuple[str, str | None]:
@@ -228,7 +284,7 @@ def cmd_check(args: argparse.Namespace) -> int:
 
 def cmd_verify(args: argparse.Namespace) -> int:
     """``port verify``: judge a results file as ``port check`` judges a port."""
-    from .results import ResultsError, add_line_numbers, arrays, read_results
+    from ..portcheck.results import ResultsError, add_line_numbers, arrays, read_results
 
     try:
         suite = load_cases(args.suite, args.only or None, skip_tags=_skip_tags(args))
@@ -287,7 +343,7 @@ def register(subparsers: Any) -> None:
         "port", help="check a C port against a golden vector suite",
         description="Check a C port of airdata (the bundled one, or your own sources or "
                     "library implementing airdata.h) against a golden vector suite.",
-        epilog=_CAUTION)
+        epilog=CAUTION)
     sub = port.add_subparsers(dest="port_command", metavar="ACTION")
     sub.required = True
     c = sub.add_parser(
@@ -298,7 +354,7 @@ def register(subparsers: Any) -> None:
                     "status mismatches. Without --source/--library the bundled port is "
                     "checked. Exit status 0: all pass; 1: some case failed; 2: the check "
                     "could not run.",
-        epilog=_CAUTION)
+        epilog=CAUTION)
     c.add_argument("--suite", default=None, metavar="DIR",
                    help="vector suite directory (default: the checked-in suite of --profile "
                         "that this installation carries; see 'airdata vectors path')")
@@ -335,7 +391,7 @@ def register(subparsers: Any) -> None:
                     "file are listed with line numbers and fail the verdict. Exit status 0: "
                     "all pass; 1: some case failed or the file has problems; 2: the "
                     "verification could not run.",
-        epilog=_CAUTION)
+        epilog=CAUTION)
     v.add_argument("results", metavar="RESULTS", help="the results file")
     v.add_argument("--suite", default=None, metavar="DIR",
                    help="vector suite directory (default: the installed icao suite)")
@@ -350,6 +406,6 @@ def register(subparsers: Any) -> None:
                         "to zero; the count is printed")
     add_report_options(v)
     v.set_defaults(func=cmd_verify)
-    from .coverage import add_parser as _add_coverage
+    from .port_coverage import add_parser as _add_coverage
 
-    _add_coverage(sub, _define, _CAUTION)
+    _add_coverage(sub, _define, CAUTION)

@@ -16,12 +16,10 @@ import sys
 from typing import Any
 
 from .. import resources
+from ..notice import CAUTION
 
 __all__ = ["register_copy", "cmd_copy", "report_copy"]
 
-_CAUTION = ("airdata is an engineering and verification aid, not certified flight software. "
-            "Flight software follows its own certification basis (for example DO-178C) and "
-            "the authority's rules; local regulations and licensed practice take precedence.")
 
 
 def report_copy(command: str, files: list[tuple[Any, str]], dest: str, force: bool,
@@ -68,7 +66,7 @@ def register_copy(sub: Any) -> None:
                     "runner VECTORS=HEADERS' builds and runs the vector runner against the "
                     "headers 'airdata vectors copy HEADERS' wrote. Refuses to overwrite "
                     "existing files (each is named) unless --force.",
-        epilog=_CAUTION)
+        epilog=CAUTION)
     c.add_argument("dir", metavar="DIR", help="destination directory (made if missing)")
     c.add_argument("--force", action="store_true", help="overwrite existing files")
     c.set_defaults(func=cmd_copy)

@@ -14,12 +14,12 @@ from typing import Any
 
 import numpy as np
 
-from .commands.accuracy import SensorTerm, parse_accuracy
-from .commands.quantities import quantity_type
-from .notice import CAUTION
-from .profiles import PROFILES
-from .status import DomainError
-from .units import from_si, to_si
+from ..notice import CAUTION
+from ..profiles import PROFILES
+from ..status import DomainError
+from ..units import from_si, to_si
+from .accuracy import SensorTerm, parse_accuracy
+from .quantities import quantity_type
 
 __all__ = ["register"]
 
@@ -51,7 +51,7 @@ def _dump(obj: dict[str, Any]) -> None:
 
 
 def _cmd_limits(args: argparse.Namespace) -> int:
-    from .limits import envelope, plot_envelope
+    from ..limits import envelope, plot_envelope
 
     alts = None if args.alt_ft is None else to_si(np.asarray(args.alt_ft), "ft")
     env = envelope(args.aircraft_file, alts, dT=args.dT, load_factor=args.load_factor,
@@ -122,7 +122,7 @@ def _sensor_terms(args: argparse.Namespace) -> dict[str, SensorTerm]:
 
 
 def _cmd_budget(args: argparse.Namespace) -> int:
-    from .budget import (
+    from ..budget import (
         ACCURACY_LIMITS,
         DISPLAY_UNITS,
         OUTPUTS,

@@ -14,13 +14,12 @@ from pathlib import Path
 from typing import Any
 
 from .. import resources
+from ..notice import CAUTION_SUITE
 from ..profiles import PROFILES
 
 __all__ = ["register", "cmd_build", "cmd_verify", "cmd_diff", "cmd_path", "cmd_copy",
            "cmd_export", "located"]
 
-_CAUTION = ("An engineering and verification aid, not certified flight software; "
-            "flight software follows its own certification basis.")
 
 #: Problems printed before the rest are only counted.
 MAX_PRINTED = 50
@@ -28,7 +27,7 @@ MAX_PRINTED = 50
 
 def cmd_build(args: argparse.Namespace) -> int:
     """``airdata vectors build``: write a suite; prints a one-line summary."""
-    from .build import SUITE_VERSION, build_suite
+    from ..vectors.build import SUITE_VERSION, build_suite
 
     if args.out is None:
         args.out = resources.SUITE_FOLDERS[args.profile]
@@ -43,7 +42,7 @@ def cmd_build(args: argparse.Namespace) -> int:
 
 def cmd_verify(args: argparse.Namespace) -> int:
     """``airdata vectors verify``: 0 when the suite is sound, 1 otherwise."""
-    from .verify import Problem, verify_suite
+    from ..vectors.verify import Problem, verify_suite
 
     try:
         root = _suite(args.dir, args.profile)
@@ -73,7 +72,7 @@ def _suite(named: str | None, profile: str | None) -> Path:
 def located(root: str | Path, problem: Any) -> str:
     """``problem`` (a :class:`~airdata.vectors.verify.Problem`, whose file is relative to
     the suite root, ``"."`` for the root itself) with the file joined to ``root`` once."""
-    from .verify import Problem
+    from ..vectors.verify import Problem
 
     rel = str(problem.file)
     where = Path(root) if rel in ("", ".") else Path(root) / rel
@@ -100,7 +99,7 @@ def cmd_path(args: argparse.Namespace) -> int:
 
 def cmd_copy(args: argparse.Namespace) -> int:
     """``airdata vectors copy DIR``: the suite's C headers into a firmware tree."""
-    from ..portcheck.copy import report_copy
+    from .copy import report_copy
 
     try:
         root = _suite(args.suite, args.profile)
@@ -119,7 +118,7 @@ def cmd_copy(args: argparse.Namespace) -> int:
 
 def cmd_diff(args: argparse.Namespace) -> int:
     """``airdata vectors diff``: 0 when NEW's version makes the bump its changes need."""
-    from .diff import diff_suites
+    from ..vectors.diff import diff_suites
 
     d = diff_suites(args.old, args.new)
     if d.problems:
@@ -135,7 +134,7 @@ def cmd_export(args: argparse.Namespace) -> int:
     from pathlib import Path
 
     from ..portcheck.suite import SuiteError
-    from .export import export_cases
+    from ..vectors.export import export_cases
 
     try:
         text, n = export_cases(args.suite, args.precision, args.only, args.format,
@@ -154,13 +153,13 @@ def register(subparsers: Any) -> None:
         "vectors", help="build, verify, compare, locate and copy golden test vector suites",
         description="Golden test vectors of every catalogue function: build a suite from "
                     "the reference, verify one, compare two, show where the checked-in "
-                    "suites are, or copy a suite's C headers.", epilog=_CAUTION)
+                    "suites are, or copy a suite's C headers.", epilog=CAUTION_SUITE)
     sub = vec.add_subparsers(dest="vectors_command", metavar="ACTION")
     sub.required = True
     b = sub.add_parser("build", help="write a complete suite from the reference",
                        description="Write manifest, JSON files, schemas, C headers and "
                                    "changelog. Deterministic: byte-identical every time.",
-                       epilog=_CAUTION)
+                       epilog=CAUTION_SUITE)
     b.add_argument("--out", default=None, metavar="DIR",
                    help="output directory (default: ./vectors for icao, ./vectors-us1976 "
                         "for us1976: the checked-in suites, when run in the repository root)")
@@ -174,7 +173,7 @@ def register(subparsers: Any) -> None:
                                    "acceptance bound (a different numpy or libm build), are "
                                    "counted and accepted unless --exact is given. Exit "
                                    "status 1 on any problem.",
-                       epilog=_CAUTION)
+                       epilog=CAUTION_SUITE)
     v.add_argument("dir", nargs="?", default=None, metavar="DIR",
                    help="suite directory (default: the checked-in suite of --profile that "
                         "this installation carries; see 'airdata vectors path')")
@@ -191,7 +190,7 @@ def register(subparsers: Any) -> None:
                        description="Per function: cases added, removed, changed beyond "
                                    "tolerance; the bump the change needs (major/minor/patch) "
                                    "and whether NEW's version makes it (exit status 1 if not).",
-                       epilog=_CAUTION)
+                       epilog=CAUTION_SUITE)
     d.add_argument("old", metavar="OLD")
     d.add_argument("new", metavar="NEW")
     d.set_defaults(func=cmd_diff)
@@ -199,7 +198,7 @@ def register(subparsers: Any) -> None:
                         description="Print the directory of each checked-in suite (icao, "
                                     "us1976) and of the C interface, port and runner in this "
                                     "installation; with --profile, just that suite's "
-                                    "directory.", epilog=_CAUTION)
+                                    "directory.", epilog=CAUTION_SUITE)
     pa.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
                     help="print only this profile's suite directory")
     pa.set_defaults(func=cmd_path)
@@ -208,7 +207,7 @@ def register(subparsers: Any) -> None:
                                     "--profile (or of --suite SUITE) into DIR, for the vector "
                                     "runner of a firmware tree ('airdata port copy'). Refuses "
                                     "to overwrite existing files (each is named) unless "
-                                    "--force.", epilog=_CAUTION)
+                                    "--force.", epilog=CAUTION_SUITE)
     cp.add_argument("dir", metavar="DIR", help="destination directory (made if missing)")
     cp.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
                     help="which checked-in suite (default: icao)")
@@ -221,7 +220,7 @@ def register(subparsers: Any) -> None:
                                    "inputs as C99 hex floats of the chosen precision) as "
                                    "an airdata-cases text file or CSV (docs/exchange.md). "
                                    "Deterministic. Exit status 2 when the suite cannot be "
-                                   "read.", epilog=_CAUTION)
+                                   "read.", epilog=CAUTION_SUITE)
     e.add_argument("--suite", default=None, metavar="DIR",
                    help="vector suite directory (default: the installed icao suite)")
     e.add_argument("--precision", choices=["double", "single"], default="double",

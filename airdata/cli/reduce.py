@@ -195,7 +195,7 @@ def register(subparsers: argparse._SubParsersAction) -> None:
                    help="run the reference and the C port on every row and report the "
                         "samples where they disagree beyond the vectors' bound "
                         "K eps scale (exit status 1 if any)")
-    from ..portcheck.commands import add_port_options
+    from .port import add_port_options
 
     add_port_options(p.add_argument_group(
         "your own port", "with --compare or --engine cport: replay the series through your "
@@ -429,8 +429,8 @@ def _build_user_port(args: argparse.Namespace) -> tuple[Any, int | None]:
     """Compile the port of --source/--library before any work: (the port, None), or
     (None, the exit status) on error."""
     from ..portcheck.build import PortBuildError
-    from ..portcheck.commands import port_spec
     from ..series.compare import UserPort
+    from .port import port_spec
 
     if args.profile == "us1976" and all(n != "AIRDATA_PROFILE_US1976" for n, _ in args.define):
         args.define.append(("AIRDATA_PROFILE_US1976", None))
