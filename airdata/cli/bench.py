@@ -12,10 +12,9 @@ from pathlib import Path
 from typing import Any
 
 from ..bench import format_table, run_bench
-from ..notice import CAUTION
+from .parsers import add_command
 
 __all__ = ["register"]
-
 
 def _cmd_bench(args: argparse.Namespace) -> int:
     def say(msg: str) -> None:
@@ -35,13 +34,7 @@ def _cmd_bench(args: argparse.Namespace) -> int:
 def register(subparsers: Any) -> None:
     """Add the ``bench`` sub-command to the ``airdata`` parser."""
 
-    p = subparsers.add_parser(
-        "bench", help="measure speed and memory of the reference and the C port",
-        description="Time the reference against its floors and peers and the C port "
-                    "against the reference, as ratios measured side by side in one run "
-                    "on the same seeded inputs; count the port's instructions with "
-                    "callgrind; measure vector-suite build time and peak memory.",
-        epilog=CAUTION)
+    p = add_command(subparsers, "bench")
     p.add_argument("--quick", action="store_true",
                    help="smaller sizes (about 1e5 points): a run of well under 30 s")
     p.add_argument("--json", metavar="FILE", default=None,

@@ -17,12 +17,11 @@ from .. import units as u
 from ..chain import NOISE_BAND, air_data
 from ..profiles import get_profile
 from ..status import DomainError, Status
+from .parsers import add_command
 from .quantities import (
     Quantity,
     add_output_units,
     add_profile,
-    allow_negative_values,
-    caution,
     domain_failure,
     format_value,
     output_units,
@@ -63,11 +62,7 @@ Exit status: 0 done, 1 a reading outside the model, 2 usage error (e.g. a bad un
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``compute`` sub-command."""
-    p = subparsers.add_parser(
-        COMMAND, help="air data from one set of readings (ps, pt, TAT)",
-        description=DESCRIPTION, epilog=caution(),
-        formatter_class=argparse.RawDescriptionHelpFormatter)
-    allow_negative_values(p)
+    p = add_command(subparsers, COMMAND, description=DESCRIPTION, desk=True)
     p.add_argument("--ps", type=quantity_type("pressure"), required=True, metavar="P",
                    help="static pressure, e.g. 250hPa")
     p.add_argument("--pt", type=quantity_type("pressure"), required=True, metavar="P",

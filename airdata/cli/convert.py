@@ -28,12 +28,11 @@ from ..speeds import (
 )
 from ..status import DomainError
 from ..temperature import tat_from_sat
+from .parsers import add_command
 from .quantities import (
     Quantity,
     add_output_units,
     add_profile,
-    allow_negative_values,
-    caution,
     difference_type,
     domain_failure,
     format_value,
@@ -64,11 +63,7 @@ Exit status: 0 done, 1 a value outside the model, 2 usage error.
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``convert`` sub-command."""
-    p = subparsers.add_parser(
-        COMMAND, help="convert between CAS, EAS, TAS and Mach",
-        description=DESCRIPTION, epilog=caution(),
-        formatter_class=argparse.RawDescriptionHelpFormatter)
-    allow_negative_values(p)
+    p = add_command(subparsers, COMMAND, description=DESCRIPTION, desk=True)
     speed = p.add_mutually_exclusive_group(required=True)
     speed.add_argument("--cas", type=quantity_type("speed"), metavar="V",
                        help="calibrated airspeed, e.g. 300kt")

@@ -16,11 +16,9 @@ import sys
 from typing import Any
 
 from .. import resources
-from ..notice import CAUTION
+from .parsers import add_command
 
 __all__ = ["register_copy", "cmd_copy", "report_copy"]
-
-
 
 def report_copy(command: str, files: list[tuple[Any, str]], dest: str, force: bool,
                 what: str) -> int:
@@ -58,15 +56,7 @@ def cmd_copy(args: argparse.Namespace) -> int:
 
 def register_copy(sub: Any) -> None:
     """Add ``port copy`` to the ``port`` sub-parsers."""
-    c = sub.add_parser(
-        "copy", help="copy the bundled C port (sources, headers, Makefile, runner) into DIR",
-        description="Copy the bundled C99 port into DIR: Makefile, include/ (airdata.h, "
-                    "airdata_batch.h), src/ (the port), runner/ (the vector runner) and "
-                    "tests/driver.c, in that layout. 'make -C DIR' builds it; 'make -C DIR "
-                    "runner VECTORS=HEADERS' builds and runs the vector runner against the "
-                    "headers 'airdata vectors copy HEADERS' wrote. Refuses to overwrite "
-                    "existing files (each is named) unless --force.",
-        epilog=CAUTION)
+    c = add_command(sub, "port copy")
     c.add_argument("dir", metavar="DIR", help="destination directory (made if missing)")
     c.add_argument("--force", action="store_true", help="overwrite existing files")
     c.set_defaults(func=cmd_copy)

@@ -17,9 +17,9 @@ from ..notice import CAUTION
 from ..profiles import PROFILES, get_profile
 from ..status import Status
 from ..units import from_si
+from .parsers import add_command
 
 __all__ = ["register"]
-
 
 def _cmd_demo(args: argparse.Namespace) -> int:
     from ..demo import demo_readings
@@ -67,10 +67,7 @@ def _cmd_demo(args: argparse.Namespace) -> int:
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``demo`` sub-command to the ``airdata`` parser."""
-    p = subparsers.add_parser("demo", help="run the reference over the bundled demo sortie",
-                              description="Run the air-data chain over an invented demo "
-                                          "sortie.",
-                              epilog=CAUTION)
+    p = add_command(subparsers, "demo")
     p.add_argument("--profile", choices=sorted(PROFILES), default="icao",
                    help="constants profile (default: icao)")
     p.add_argument("--setting", type=float, default=None, metavar="PA",

@@ -19,6 +19,7 @@ from ..profiles import PROFILES
 from ..status import DomainError
 from ..units import from_si, to_si
 from .accuracy import SensorTerm, parse_accuracy
+from .parsers import add_command
 from .quantities import quantity_type
 
 __all__ = ["register"]
@@ -207,13 +208,7 @@ def _cmd_budget(args: argparse.Namespace) -> int:
 def register(subparsers: Any) -> None:
     """Add the ``limits`` and ``budget`` sub-commands to the ``airdata`` parser."""
 
-    lim = subparsers.add_parser(
-        "limits", help="speed envelope of an aircraft file (stall, max operating, ceiling)",
-        description="Tabulate the stall speeds at the lightest and heaviest weight, the "
-                    "maximum operating speed (lower of the CAS and Mach limits) and the "
-                    "maximum altitude of an aircraft described in an airdata-aircraft/1 "
-                    "TOML file, in CAS, EAS, TAS and Mach against pressure altitude.",
-        epilog=CAUTION)
+    lim = add_command(subparsers, "limits")
     lim.add_argument("aircraft_file", metavar="AIRCRAFT_FILE",
                      help="aircraft data file (see examples/demo_aircraft.toml)")
     lim.add_argument("--alt-ft", type=_float_list, default=None, metavar="LIST",
@@ -230,13 +225,7 @@ def register(subparsers: Any) -> None:
     lim.add_argument("--json", action="store_true", help="machine-readable output (SI units)")
     lim.set_defaults(func=_cmd_limits)
 
-    bud = subparsers.add_parser(
-        "budget", help="sensor error budget over an altitude x CAS grid",
-        description="Propagate static-pressure, pitot-pressure and TAT sensor errors (bias "
-                    "and 1-sd noise) to pressure altitude, CAS, Mach, TAS, SAT and EAS over "
-                    "a grid of pressure altitude and CAS on a standard day, linearly or by "
-                    "Monte Carlo.",
-        epilog=CAUTION)
+    bud = add_command(subparsers, "budget")
     bud.add_argument("--alt-ft", type=_float_list, default=_float_list("0:40000:5000"),
                      metavar="LIST", help="pressure altitudes, ft (default 0:40000:5000)")
     bud.add_argument("--cas-kt", type=_float_list, default=_float_list("100:350:50"),

@@ -30,12 +30,11 @@ from ..portcheck.requirements import RequirementsError, load_requirements
 from ..portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load_cases
 from ..portcheck.verdict import PRECISION_LABEL, Report, judge
 from ..vectors.catalogue import CATALOGUE
+from .parsers import add_command
 
 _CATALOGUE_NAMES = {s.name for s in CATALOGUE}
 
 __all__ = ["register", "cmd_check", "cmd_verify"]
-
-
 
 #: The preprocessor switch of the us1976 constants (airdata.h).
 _US1976 = "AIRDATA_PROFILE_US1976"
@@ -339,22 +338,10 @@ def cmd_verify(args: argparse.Namespace) -> int:
 
 def register(subparsers: Any) -> None:
     """Add the ``port`` parser and its ``check`` and ``copy`` sub-commands."""
-    port = subparsers.add_parser(
-        "port", help="check a C port against a golden vector suite",
-        description="Check a C port of airdata (the bundled one, or your own sources or "
-                    "library implementing airdata.h) against a golden vector suite.",
-        epilog=CAUTION)
+    port = add_command(subparsers, "port")
     sub = port.add_subparsers(dest="port_command", metavar="ACTION")
     sub.required = True
-    c = sub.add_parser(
-        "check", help="run every vector through a C port and judge it function by function",
-        description="Compile a C port on the fly (cffi), run every case of the suite "
-                    "through it and print, per function: cases, passed, worst error in "
-                    "units of the bound k * eps * scale, the worst case with its inputs, and "
-                    "status mismatches. Without --source/--library the bundled port is "
-                    "checked. Exit status 0: all pass; 1: some case failed; 2: the check "
-                    "could not run.",
-        epilog=CAUTION)
+    c = add_command(sub, "port check")
     c.add_argument("--suite", default=None, metavar="DIR",
                    help="vector suite directory (default: the checked-in suite of --profile "
                         "that this installation carries; see 'airdata vectors path')")
@@ -382,16 +369,7 @@ def register(subparsers: Any) -> None:
     from .copy import register_copy
 
     register_copy(sub)
-    v = sub.add_parser(
-        "verify", help="judge a results file written by a port anywhere, as check does",
-        description="Read an airdata-results file (docs/exchange.md) written by an "
-                    "implementation under test from the cases of 'airdata vectors export', "
-                    "and judge it exactly as 'port check' judges a port, with the same "
-                    "table. Missing, duplicate, unknown or malformed lines and a truncated "
-                    "file are listed with line numbers and fail the verdict. Exit status 0: "
-                    "all pass; 1: some case failed or the file has problems; 2: the "
-                    "verification could not run.",
-        epilog=CAUTION)
+    v = add_command(sub, "port verify")
     v.add_argument("results", metavar="RESULTS", help="the results file")
     v.add_argument("--suite", default=None, metavar="DIR",
                    help="vector suite directory (default: the installed icao suite)")

@@ -22,9 +22,9 @@ from ..portcheck.coverage import (
     tool_versions,
 )
 from ..portcheck.suite import SuiteError
+from .parsers import add_command
 
 __all__ = ["add_parser", "cmd_coverage"]
-
 
 def cmd_coverage(args: argparse.Namespace) -> int:
     """Run ``airdata port coverage``; exit 0, 1 (below --fail-under) or 2 (cannot run, or
@@ -72,20 +72,7 @@ def cmd_coverage(args: argparse.Namespace) -> int:
 
 def add_parser(sub: Any, define_type: Any, epilog: str) -> None:
     """Add the ``coverage`` action to the ``port`` sub-parsers."""
-    c = sub.add_parser(
-        "coverage", help="MC/DC, branch, line and region coverage of a C port by the vectors",
-        description="Compile a C port with clang 19 source-based coverage and MC/DC "
-                    "(-fprofile-instr-generate -fcoverage-mapping -fcoverage-mcdc), run every "
-                    "case of the suite through it with the vector runner in each precision (scalar "
-                    "functions, NULL rules, and the batch entry points when the sources "
-                    "define them), and report the covered "
-                    "regions, lines, branches and MC/DC conditions, listing by file:line what "
-                    "no vector exercises. Needs clang-19, llvm-profdata-19 and llvm-cov-19 "
-                    "(Debian: clang-19 llvm-19 libclang-rt-19-dev). Without --source the "
-                    "bundled port is measured. Exit status 0: measured; 1: MC/DC below "
-                    "--fail-under; 2: could not run, or the run stopped early. An engineering and "
-                    "verification aid, not certified flight software.",
-        epilog=epilog)
+    c = add_command(sub, "port coverage", epilog=epilog)
     c.add_argument("--suite", default="vectors", metavar="DIR",
                    help="vector suite directory (default: ./vectors)")
     c.add_argument("--precision", choices=["double", "single", "both"], default="both",

@@ -80,12 +80,11 @@ from ..series.plan import OUTPUTS, ROLES, UsageError
 from ..series.run import PLOT_POINTS, Summary, reduce_series
 from ..series.sinks import RESOLUTION_DECIMALS
 from ..status import DomainError
+from .parsers import add_command
 from .quantities import (
     DECIMALS,
     add_output_units,
     add_profile,
-    allow_negative_values,
-    caution,
     fail,
     output_units,
     quantity_type,
@@ -142,11 +141,7 @@ def _assignment(text: str) -> tuple[str, str]:
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``reduce`` sub-command."""
-    p = subparsers.add_parser(
-        COMMAND, help="run the air-data chain over a recorded CSV series",
-        description=DESCRIPTION, epilog=caution(),
-        formatter_class=argparse.RawDescriptionHelpFormatter)
-    allow_negative_values(p)
+    p = add_command(subparsers, COMMAND, description=DESCRIPTION, desk=True)
     p.add_argument("input", metavar="IN.csv", help='recorded series ("-": standard input)')
     p.add_argument("-o", "--output", metavar="OUT.csv", required=True,
                    help='reduced series ("-": standard output)')

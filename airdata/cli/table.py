@@ -19,12 +19,11 @@ from .. import units as u
 from ..atmosphere import atmosphere, geometric_altitude, geopotential_altitude
 from ..profiles import Profile, get_profile
 from ..status import DomainError
+from .parsers import add_command
 from .quantities import (
     Quantity,
     add_output_units,
     add_profile,
-    allow_negative_values,
-    caution,
     difference_type,
     domain_failure,
     fail,
@@ -57,11 +56,7 @@ Exit status: 0 done, 1 a range wholly outside the model, 2 usage error.
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``table`` sub-command."""
-    p = subparsers.add_parser(
-        COMMAND, help="standard-atmosphere table over an altitude range",
-        description=DESCRIPTION, epilog=caution(),
-        formatter_class=argparse.RawDescriptionHelpFormatter)
-    allow_negative_values(p)
+    p = add_command(subparsers, COMMAND, description=DESCRIPTION, desk=True)
     p.add_argument("--from", dest="start", type=quantity_type("length"), metavar="H",
                    default=Quantity(0.0, 0.0, "ft"), help="first altitude (default 0ft)")
     p.add_argument("--to", dest="stop", type=quantity_type("length"), metavar="H",

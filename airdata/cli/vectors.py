@@ -16,10 +16,10 @@ from typing import Any
 from .. import resources
 from ..notice import CAUTION_SUITE
 from ..profiles import PROFILES
+from .parsers import add_command
 
 __all__ = ["register", "cmd_build", "cmd_verify", "cmd_diff", "cmd_path", "cmd_copy",
            "cmd_export", "located"]
-
 
 #: Problems printed before the rest are only counted.
 MAX_PRINTED = 50
@@ -149,31 +149,17 @@ def cmd_export(args: argparse.Namespace) -> int:
 
 def register(subparsers: Any) -> None:
     """Add the ``vectors`` parser and its sub-commands."""
-    vec = subparsers.add_parser(
-        "vectors", help="build, verify, compare, locate and copy golden test vector suites",
-        description="Golden test vectors of every catalogue function: build a suite from "
-                    "the reference, verify one, compare two, show where the checked-in "
-                    "suites are, or copy a suite's C headers.", epilog=CAUTION_SUITE)
+    vec = add_command(subparsers, "vectors", epilog=CAUTION_SUITE)
     sub = vec.add_subparsers(dest="vectors_command", metavar="ACTION")
     sub.required = True
-    b = sub.add_parser("build", help="write a complete suite from the reference",
-                       description="Write manifest, JSON files, schemas, C headers and "
-                                   "changelog. Deterministic: byte-identical every time.",
-                       epilog=CAUTION_SUITE)
+    b = add_command(sub, "vectors build", epilog=CAUTION_SUITE)
     b.add_argument("--out", default=None, metavar="DIR",
                    help="output directory (default: ./vectors for icao, ./vectors-us1976 "
                         "for us1976: the checked-in suites, when run in the repository root)")
     b.add_argument("--profile", choices=sorted(PROFILES), default="icao",
                    help="constants profile (default: icao)")
     b.set_defaults(func=cmd_build)
-    v = sub.add_parser("verify", help="check a suite: checksums, schema, C headers, values",
-                       description="Check checksums, schemas and C headers, and re-compute "
-                                   "every expected value with the installed reference. "
-                                   "Values that differ in the last bits, within half the "
-                                   "acceptance bound (a different numpy or libm build), are "
-                                   "counted and accepted unless --exact is given. Exit "
-                                   "status 1 on any problem.",
-                       epilog=CAUTION_SUITE)
+    v = add_command(sub, "vectors verify", epilog=CAUTION_SUITE)
     v.add_argument("dir", nargs="?", default=None, metavar="DIR",
                    help="suite directory (default: the checked-in suite of --profile that "
                         "this installation carries; see 'airdata vectors path')")
@@ -186,28 +172,15 @@ def register(subparsers: Any) -> None:
                    help="require every re-computed value to equal the expected one bit for "
                         "bit (the staleness check of the suite's own repository)")
     v.set_defaults(func=cmd_verify)
-    d = sub.add_parser("diff", help="compare two suites and check the version bump",
-                       description="Per function: cases added, removed, changed beyond "
-                                   "tolerance; the bump the change needs (major/minor/patch) "
-                                   "and whether NEW's version makes it (exit status 1 if not).",
-                       epilog=CAUTION_SUITE)
+    d = add_command(sub, "vectors diff", epilog=CAUTION_SUITE)
     d.add_argument("old", metavar="OLD")
     d.add_argument("new", metavar="NEW")
     d.set_defaults(func=cmd_diff)
-    pa = sub.add_parser("path", help="print where the checked-in suites and C files are",
-                        description="Print the directory of each checked-in suite (icao, "
-                                    "us1976) and of the C interface, port and runner in this "
-                                    "installation; with --profile, just that suite's "
-                                    "directory.", epilog=CAUTION_SUITE)
+    pa = add_command(sub, "vectors path", epilog=CAUTION_SUITE)
     pa.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
                     help="print only this profile's suite directory")
     pa.set_defaults(func=cmd_path)
-    cp = sub.add_parser("copy", help="copy a suite's C headers into DIR",
-                        description="Copy the C99 headers of the checked-in suite of "
-                                    "--profile (or of --suite SUITE) into DIR, for the vector "
-                                    "runner of a firmware tree ('airdata port copy'). Refuses "
-                                    "to overwrite existing files (each is named) unless "
-                                    "--force.", epilog=CAUTION_SUITE)
+    cp = add_command(sub, "vectors copy", epilog=CAUTION_SUITE)
     cp.add_argument("dir", metavar="DIR", help="destination directory (made if missing)")
     cp.add_argument("--profile", choices=sorted(resources.SUITE_FOLDERS), default=None,
                     help="which checked-in suite (default: icao)")
@@ -215,12 +188,7 @@ def register(subparsers: Any) -> None:
                     help="copy the headers of this suite directory instead")
     cp.add_argument("--force", action="store_true", help="overwrite existing files")
     cp.set_defaults(func=cmd_copy)
-    e = sub.add_parser("export", help="write every case as a flat text stream for any port",
-                       description="Write every valid and invalid case (id, function, "
-                                   "inputs as C99 hex floats of the chosen precision) as "
-                                   "an airdata-cases text file or CSV (docs/exchange.md). "
-                                   "Deterministic. Exit status 2 when the suite cannot be "
-                                   "read.", epilog=CAUTION_SUITE)
+    e = add_command(sub, "vectors export", epilog=CAUTION_SUITE)
     e.add_argument("--suite", default=None, metavar="DIR",
                    help="vector suite directory (default: the installed icao suite)")
     e.add_argument("--precision", choices=["double", "single"], default="double",
