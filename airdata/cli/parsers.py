@@ -12,7 +12,7 @@ from ..notice import CAUTION
 from .quantities import allow_negative_values, caution
 from .texts import COMMAND_TEXT
 
-__all__ = ["add_command"]
+__all__ = ["add_command", "add_compile_options", "define_type"]
 
 
 def add_command(subparsers: Any, command: str, *, description: str | None = None,
@@ -52,3 +52,21 @@ def add_command(subparsers: Any, command: str, *, description: str | None = None
         allow_negative_values(p)
         return p
     return subparsers.add_parser(name, help=help, description=description, epilog=epilog)
+
+
+def define_type(text: str) -> tuple[str, str | None]:
+    """``--define NAME[=VALUE]`` as (name, value or None); an argparse type."""
+    name, sep, value = text.partition("=")
+    if not name.isidentifier():
+        raise argparse.ArgumentTypeError(f"--define {text!r}: expected NAME or NAME=VALUE")
+    return name, (value if sep else None)
+
+
+def add_compile_options(parser: argparse._ActionsContainer) -> None:
+    """``--include`` and ``--define``: how a user's C port is compiled (``port check``,
+    ``port coverage``, ``reduce --compare``)."""
+    parser.add_argument("--include", action="append", default=[], metavar="DIR",
+                        help="extra include directory (repeatable); the bundled airdata.h "
+                             "is searched last")
+    parser.add_argument("--define", action="append", default=[], type=define_type,
+                        metavar="NAME[=V]", help="preprocessor definition (repeatable)")

@@ -30,7 +30,7 @@ from ..portcheck.requirements import RequirementsError, load_requirements
 from ..portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load_cases
 from ..portcheck.verdict import PRECISION_LABEL, Report, judge
 from ..vectors.catalogue import CATALOGUE
-from .parsers import add_command
+from .parsers import add_command, add_compile_options
 
 _CATALOGUE_NAMES = {s.name for s in CATALOGUE}
 
@@ -88,13 +88,6 @@ def write_outputs(args: argparse.Namespace, reports: Sequence[Report],
     return said
 
 
-def _define(text: str) -> tuple[str, str | None]:
-    name, sep, value = text.partition("=")
-    if not name.isidentifier():
-        raise argparse.ArgumentTypeError(f"--define {text!r}: expected NAME or NAME=VALUE")
-    return name, (value if sep else None)
-
-
 def add_port_options(parser: argparse._ActionsContainer) -> None:
     """``--source``, ``--library``, ``--include``, ``--define``: the port to compile
     (shared by ``port check`` and ``reduce --compare``)."""
@@ -103,11 +96,7 @@ def add_port_options(parser: argparse._ActionsContainer) -> None:
     parser.add_argument("--library", metavar="LIB",
                         help="a prebuilt static (.a) or shared (.so) library implementing "
                              "airdata.h, built for the --precision given")
-    parser.add_argument("--include", action="append", default=[], metavar="DIR",
-                        help="extra include directory (repeatable); the bundled airdata.h "
-                             "is searched last")
-    parser.add_argument("--define", action="append", default=[], type=_define,
-                        metavar="NAME[=V]", help="preprocessor definition (repeatable)")
+    add_compile_options(parser)
 
 
 def port_spec(args: argparse.Namespace) -> PortSpec:
@@ -386,4 +375,4 @@ def register(subparsers: Any) -> None:
     v.set_defaults(func=cmd_verify)
     from .port_coverage import add_parser as _add_coverage
 
-    _add_coverage(sub, _define, CAUTION)
+    _add_coverage(sub, CAUTION)

@@ -22,7 +22,7 @@ from ..portcheck.coverage import (
     tool_versions,
 )
 from ..portcheck.suite import SuiteError
-from .parsers import add_command
+from .parsers import add_command, add_compile_options
 
 __all__ = ["add_parser", "cmd_coverage"]
 
@@ -70,7 +70,7 @@ def cmd_coverage(args: argparse.Namespace) -> int:
     return 0
 
 
-def add_parser(sub: Any, define_type: Any, epilog: str) -> None:
+def add_parser(sub: Any, epilog: str) -> None:
     """Add the ``coverage`` action to the ``port`` sub-parsers."""
     c = add_command(sub, "port coverage", epilog=epilog)
     c.add_argument("--suite", default="vectors", metavar="DIR",
@@ -80,11 +80,7 @@ def add_parser(sub: Any, define_type: Any, epilog: str) -> None:
     c.add_argument("--source", nargs="+", metavar="FILE.c",
                    help="your port's C sources (they implement airdata.h); only these are "
                         "measured")
-    c.add_argument("--include", action="append", default=[], metavar="DIR",
-                   help="extra include directory (repeatable); the bundled airdata.h is "
-                        "searched last")
-    c.add_argument("--define", action="append", default=[], type=define_type,
-                   metavar="NAME[=V]", help="preprocessor definition (repeatable)")
+    add_compile_options(c)
     c.add_argument("--batch", choices=["auto", "yes", "no"], default="auto",
                    help="drive the batch entry points of airdata_batch.h: when the sources "
                         "define all of them (auto, default), always, or never")
