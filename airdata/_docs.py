@@ -1,20 +1,22 @@
-"""The parameter text that many docstrings share, in one place.
+"""The text that many docstrings share, in one place.
 
 A docstring names a shared entry as ``{name}`` on a line of its own (indented like the
-other parameters); :func:`fill_doc` puts the text in when the module is imported, so
-``help()`` and the documentation show it in full.
+other entries of its section), or several as ``{a, b, c}``, which stand one below the
+other; :func:`fill_doc` puts the text in when the module is imported, so ``help()`` and
+the documentation show it in full.  An entry's text is what stands under "Parameters"
+(or "Attributes"), "Returns" or "Raises", with the first line unindented.
 """
 
 from __future__ import annotations
 
+import re
 from typing import TypeVar
 
-__all__ = ["PARAMETERS", "fill_doc"]
+__all__ = ["PARAMETERS", "RETURNS", "RAISES", "fill_doc"]
 
 T = TypeVar("T")
 
-#: Shared entry -> its text, as it appears under "Parameters" (or "Attributes") with the
-#: first line unindented.
+#: Shared entry -> its text under "Parameters" (or "Attributes").
 PARAMETERS: dict[str, str] = {
     "broadcast": (
         "Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python\n"
@@ -106,12 +108,74 @@ PARAMETERS: dict[str, str] = {
     ),
 }
 
-_FILLED = {key: text.replace("\n", "\n    ") for key, text in PARAMETERS.items()}
+#: Shared entry -> its text under "Returns".
+RETURNS: dict[str, str] = {
+    "out_cas": (
+        "float or ndarray\n"
+        "    Calibrated airspeed, m/s."
+    ),
+    "out_figure": (
+        "matplotlib.figure.Figure\n"
+        "    The figure, not attached to pyplot (no backend is selected or changed)."
+    ),
+    "out_impact_pressure": (
+        "float or ndarray\n"
+        "    Impact pressure, Pa."
+    ),
+    "out_mach": (
+        "float or ndarray\n"
+        "    Mach number."
+    ),
+}
+
+#: Shared entry -> its text under "Raises".
+RAISES: dict[str, str] = {
+    "bad_mach_ps": (
+        "DomainError\n"
+        "    Bad or out-of-range ``mach`` or ``ps``."
+    ),
+    "bad_ps_limits": (
+        "DomainError\n"
+        "    Bad or out-of-range ``ps``, ``cas_limit`` or ``mach_limit``."
+    ),
+    "bad_stall_mach": (
+        "DomainError\n"
+        "    Bad or out-of-range input, stall EAS above 4000 m/s or stall Mach above 10."
+    ),
+    "no_matplotlib": (
+        "ImportError\n"
+        "    matplotlib is not installed (it is an optional extra)."
+    ),
+}
+
+
+def _indent(text: str) -> str:
+    """``text`` with every line after the first indented by 4 spaces (blank lines kept
+    blank): an entry as it stands in a module-level docstring."""
+    return "\n".join(line if i == 0 or not line else "    " + line
+                     for i, line in enumerate(text.split("\n")))
+
+
+_ENTRIES: dict[str, str] = {}
+for _table in (PARAMETERS, RETURNS, RAISES):
+    if _ENTRIES.keys() & _table.keys():
+        raise ValueError(f"entries named twice: {sorted(_ENTRIES.keys() & _table.keys())}")
+    _ENTRIES.update(_table)
+
+#: A field: ``{name}`` or ``{a, b, c}`` (names of entries; other braces, such as a
+#: numpydoc value set ``{"rms", "sd"}``, are text).
+_FIELD = re.compile(r"\{([a-z][A-Za-z0-9_]*(?:, [a-z][A-Za-z0-9_]*)*)\}")
+
+
+def _expand(field: re.Match[str]) -> str:
+    """The text of the entries a field names, one below the other (KeyError for an
+    unknown name)."""
+    return _indent("\n".join(_ENTRIES[name] for name in field.group(1).split(", ")))
 
 
 def fill_doc(obj: T) -> T:
-    """Put the shared parameter text into the ``{name}`` fields of ``obj``'s docstring."""
+    """Put the shared text into the ``{name}`` and ``{a, b}`` fields of ``obj``'s docstring."""
     doc = getattr(obj, "__doc__", None)
     if doc:
-        obj.__doc__ = doc.format_map(_FILLED)  # type: ignore[attr-defined]
+        obj.__doc__ = _FIELD.sub(_expand, doc)  # type: ignore[attr-defined]
     return obj

@@ -59,17 +59,15 @@ def altitude_of_pressure(p: F64, t: LayerTable) -> F64:
 
 
 @fill_doc
-def pressure_altitude(
-    ps: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
-) -> FloatOrArray:
+def pressure_altitude(ps: ArrayLike, *, profile: Profile | str | None = None,
+                      strict: bool = True) -> FloatOrArray:
     """Pressure altitude: the standard-atmosphere altitude at which the pressure is ``ps``.
 
     Parameters
     ----------
     ps : float or array_like
         Static pressure, Pa, in [p(84852 m), p(-5000 m)] = [0.3734, 177687] Pa (icao).
-    {profile}
-    {strict}
+    {profile, strict}
 
     {broadcast}
 
@@ -103,17 +101,15 @@ def pressure_altitude(
 
 
 @fill_doc
-def pressure_at_altitude(
-    h: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
-) -> FloatOrArray:
+def pressure_at_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
+                         strict: bool = True) -> FloatOrArray:
     """Standard static pressure at pressure altitude ``h``.
 
     Parameters
     ----------
     h : float or array_like
         Geopotential pressure altitude, m, in [-5000, 84852].
-    {profile}
-    {strict}
+    {profile, strict}
 
     {broadcast}
 
@@ -143,13 +139,9 @@ def pressure_at_altitude(
 
 
 @fill_doc
-def baro_corrected_altitude(
-    ps: ArrayLike,
-    setting: ArrayLike,
-    *,
-    profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def baro_corrected_altitude(ps: ArrayLike, setting: ArrayLike, *,
+                            profile: Profile | str | None = None,
+                            strict: bool = True) -> FloatOrArray:
     """Altitude shown by an altimeter set to ``setting``: H(ps) - H(setting).
 
     Parameters
@@ -157,8 +149,7 @@ def baro_corrected_altitude(
     {ps}
     setting : float or array_like
         Altimeter setting (QNH), Pa, in [p(11000 m), p(-5000 m)] = [22632, 177687] Pa.
-    {profile}
-    {strict}
+    {profile, strict}
 
     {broadcast}
 
@@ -188,13 +179,8 @@ def baro_corrected_altitude(
 
 
 @fill_doc
-def altimeter_setting(
-    ps: ArrayLike,
-    elevation: ArrayLike,
-    *,
-    profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def altimeter_setting(ps: ArrayLike, elevation: ArrayLike, *, profile: Profile | str | None = None,
+                      strict: bool = True) -> FloatOrArray:
     """Altimeter setting that makes an altimeter read ``elevation`` at static pressure ``ps``.
 
     The inverse of :func:`baro_corrected_altitude` in ``setting``.
@@ -206,8 +192,7 @@ def altimeter_setting(
     elevation : float or array_like
         Station elevation (geopotential), m, in [-5000, 11000].  The pressure altitude
         of the resulting setting, H(ps) - elevation, must lie in [-5000, 11000] m.
-    {profile}
-    {strict}
+    {profile, strict}
 
     {broadcast}
 
@@ -251,13 +236,8 @@ def altimeter_setting(
 
 
 @fill_doc
-def density_altitude(
-    ps: ArrayLike,
-    sat: ArrayLike,
-    *,
-    profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def density_altitude(ps: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
+                     strict: bool = True) -> FloatOrArray:
     """Density altitude: the standard-atmosphere altitude whose density is ps/(R sat).
 
     Parameters
@@ -267,8 +247,7 @@ def density_altitude(
         Static air temperature, K, in [50, 5000].  The density ps/(R sat) must lie
         within the model, [rho(84852 m), rho(-5000 m)] widened by 8 eps relative
         (:func:`density_range`).
-    {profile}
-    {strict}
+    {profile, strict}
 
     {broadcast}
 

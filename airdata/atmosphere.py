@@ -55,13 +55,8 @@ class Atmosphere:
 
 
 @fill_doc
-def atmosphere(
-    h: ArrayLike,
-    dT: ArrayLike = 0.0,
-    *,
-    profile: Profile | str | None = None,
-    strict: bool = True,
-) -> Atmosphere:
+def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | None = None,
+               strict: bool = True) -> Atmosphere:
     """Standard atmosphere at geopotential altitude ``h``, optionally off-standard.
 
     Parameters
@@ -126,9 +121,8 @@ def atmosphere(
 
 
 @fill_doc
-def geopotential_altitude(
-    z: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
-) -> FloatOrArray:
+def geopotential_altitude(z: ArrayLike, *, profile: Profile | str | None = None,
+                          strict: bool = True) -> FloatOrArray:
     """Geopotential altitude from geometric altitude, ATM-7: h = r0 z/(r0 + z).
 
     Parameters
@@ -136,8 +130,7 @@ def geopotential_altitude(
     z : float or array_like
         Geometric altitude, m, in [-4996.07, 86000.00] (the image of the model's
         geopotential range).
-    {profile_r0}
-    {strict}
+    {profile_r0, strict}
 
     {broadcast}
 
@@ -162,16 +155,13 @@ def geopotential_altitude(
 
 
 @fill_doc
-def geometric_altitude(
-    h: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
-) -> FloatOrArray:
+def geometric_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
+                       strict: bool = True) -> FloatOrArray:
     """Geometric altitude from geopotential altitude, ATM-8: z = r0 h/(r0 - h).
 
     Parameters
     ----------
-    {h}
-    {profile_r0}
-    {strict}
+    {h, profile_r0, strict}
 
     {broadcast}
 

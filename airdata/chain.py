@@ -84,17 +84,9 @@ def check_noise_band(noise_band: float) -> None:
 
 
 @fill_doc
-def air_data(
-    ps: ArrayLike,
-    pt: ArrayLike,
-    tat: ArrayLike,
-    recovery: ArrayLike = 1.0,
-    setting: ArrayLike | None = None,
-    *,
-    noise_band: float = NOISE_BAND,
-    profile: Profile | str | None = None,
-    strict: bool = True,
-) -> AirData:
+def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike = 1.0,
+             setting: ArrayLike | None = None, *, noise_band: float = NOISE_BAND,
+             profile: Profile | str | None = None, strict: bool = True) -> AirData:
     """Run the whole air-data chain on static pressure, total pressure and TAT.
 
     Parameters

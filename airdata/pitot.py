@@ -241,30 +241,24 @@ def mach_from_pressures(qc: F64, p: F64) -> F64:
 
 
 @fill_doc
-def impact_pressure_from_mach(
-    mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def impact_pressure_from_mach(mach: ArrayLike, ps: ArrayLike, *,
+                              profile: Profile | str | None = None,
+                              strict: bool = True) -> FloatOrArray:
     """Impact pressure qc = pt - ps sensed by a pitot probe at Mach ``mach``.
 
     Parameters
     ----------
-    {mach}
-    {ps}
-    {profile_range}
-    {strict}
+    {mach, ps, profile_range, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Impact pressure, Pa.
+    {out_impact_pressure}
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range ``mach`` or ``ps``.
+    {bad_mach_ps}
 
     Notes
     -----
@@ -280,26 +274,21 @@ def impact_pressure_from_mach(
 
 
 @fill_doc
-def mach_from_impact_pressure(
-    qc: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                              strict: bool = True) -> FloatOrArray:
     """Mach number from impact pressure and static pressure.
 
     Parameters
     ----------
     qc : float or array_like
         Impact pressure pt - ps, Pa, >= 0; qc/ps must not exceed its value at Mach 10.
-    {ps}
-    {profile_range}
-    {strict}
+    {ps, profile_range, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Mach number.
+    {out_mach}
 
     Raises
     ------
@@ -324,24 +313,21 @@ def mach_from_impact_pressure(
 
 
 @fill_doc
-def impact_pressure_from_cas(
-    cas: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
-) -> FloatOrArray:
+def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = None,
+                             strict: bool = True) -> FloatOrArray:
     """Impact pressure corresponding to calibrated airspeed ``cas``.
 
     Parameters
     ----------
     cas : float or array_like
         Calibrated airspeed, m/s, in [0, 10 a0] (a0 = 340.294 m/s, icao).
-    {profile_p0_a0}
-    {strict}
+    {profile_p0_a0, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Impact pressure, Pa.
+    {out_impact_pressure}
 
     Raises
     ------
@@ -366,24 +352,21 @@ def impact_pressure_from_cas(
 
 
 @fill_doc
-def cas_from_impact_pressure(
-    qc: ArrayLike, *, profile: Profile | str | None = None, strict: bool = True
-) -> FloatOrArray:
+def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = None,
+                             strict: bool = True) -> FloatOrArray:
     """Calibrated airspeed from impact pressure.
 
     Parameters
     ----------
     qc : float or array_like
         Impact pressure, Pa, in [0, p0 f(10)] (about 1.30e7 Pa).
-    {profile_p0_a0}
-    {strict}
+    {profile_p0_a0, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Calibrated airspeed, m/s.
+    {out_cas}
 
     Raises
     ------

@@ -37,10 +37,8 @@ __all__ = [
 
 
 @fill_doc
-def cas_from_mach(
-    mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def cas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True) -> FloatOrArray:
     """Calibrated airspeed at Mach ``mach`` and static pressure ``ps``.
 
     Parameters
@@ -49,15 +47,13 @@ def cas_from_mach(
     ps : float or array_like
         Static pressure, Pa, in [0.3734, 177687] Pa (icao).  The impact pressure
         must not exceed that of CAS = 10 a0.
-    {profile_p0_a0_range}
-    {strict}
+    {profile_p0_a0_range, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Calibrated airspeed, m/s.
+    {out_cas}
 
     Raises
     ------
@@ -85,10 +81,8 @@ def cas_from_mach(
 
 
 @fill_doc
-def mach_from_cas(
-    cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def mach_from_cas(cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True) -> FloatOrArray:
     """Mach number at calibrated airspeed ``cas`` and static pressure ``ps``.
 
     Parameters
@@ -98,15 +92,13 @@ def mach_from_cas(
     ps : float or array_like
         Static pressure, Pa, in [0.3734, 177687] Pa (icao).  The resulting Mach
         number must not exceed 10.
-    {profile_p0_a0_range}
-    {strict}
+    {profile_p0_a0_range, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Mach number.
+    {out_mach}
 
     Raises
     ------
@@ -137,18 +129,13 @@ def mach_from_cas(
 
 
 @fill_doc
-def eas_from_mach(
-    mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def eas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True) -> FloatOrArray:
     """Equivalent airspeed at Mach ``mach`` and static pressure ``ps``.
 
     Parameters
     ----------
-    {mach}
-    {ps}
-    {profile_p0_a0}
-    {strict}
+    {mach, ps, profile_p0_a0, strict}
 
     {broadcast}
 
@@ -159,8 +146,7 @@ def eas_from_mach(
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range ``mach`` or ``ps``.
+    {bad_mach_ps}
 
     Notes
     -----
@@ -176,26 +162,21 @@ def eas_from_mach(
 
 
 @fill_doc
-def mach_from_eas(
-    eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def mach_from_eas(eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True) -> FloatOrArray:
     """Mach number at equivalent airspeed ``eas`` and static pressure ``ps``.
 
     Parameters
     ----------
     eas : float or array_like
         Equivalent airspeed, m/s, in [0, 4000].  The Mach number must not exceed 10.
-    {ps}
-    {profile_p0_a0}
-    {strict}
+    {ps, profile_p0_a0, strict}
 
     {broadcast}
 
     Returns
     -------
-    float or ndarray
-        Mach number.
+    {out_mach}
 
     Raises
     ------
@@ -218,16 +199,13 @@ def mach_from_eas(
 
 
 @fill_doc
-def tas_from_mach(
-    mach: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def tas_from_mach(mach: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True) -> FloatOrArray:
     """True airspeed at Mach ``mach`` and static air temperature ``sat``.
 
     Parameters
     ----------
-    {mach}
-    {sat}
+    {mach, sat}
     {profile_R}
     {strict}
 
@@ -257,10 +235,8 @@ def tas_from_mach(
 
 
 @fill_doc
-def mach_from_tas(
-    tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def mach_from_tas(tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | None = None,
+                  strict: bool = True) -> FloatOrArray:
     """Mach number at true airspeed ``tas`` and static air temperature ``sat``.
 
     Parameters
@@ -275,8 +251,7 @@ def mach_from_tas(
 
     Returns
     -------
-    float or ndarray
-        Mach number.
+    {out_mach}
 
     Raises
     ------
@@ -299,18 +274,13 @@ def mach_from_tas(
 
 
 @fill_doc
-def dynamic_pressure(
-    mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def dynamic_pressure(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | None = None,
+                     strict: bool = True) -> FloatOrArray:
     """Dynamic pressure q = rho V^2 / 2 = (gamma/2) ps M^2.
 
     Parameters
     ----------
-    {mach}
-    {ps}
-    {profile_range}
-    {strict}
+    {mach, ps, profile_range, strict}
 
     {broadcast}
 
@@ -322,8 +292,7 @@ def dynamic_pressure(
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range ``mach`` or ``ps``.
+    {bad_mach_ps}
 
     Notes
     -----

@@ -14,17 +14,13 @@ __all__ = ["sat_from_tat", "tat_from_sat"]
 
 
 @fill_doc
-def sat_from_tat(
-    tat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *, strict: bool = True
-) -> FloatOrArray:
+def sat_from_tat(tat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
+                 strict: bool = True) -> FloatOrArray:
     """Static air temperature from the total-air-temperature probe reading.
 
     Parameters
     ----------
-    {tat}
-    {mach}
-    {recovery}
-    {strict}
+    {tat, mach, recovery, strict}
 
     {broadcast}
 
@@ -53,17 +49,13 @@ def sat_from_tat(
 
 
 @fill_doc
-def tat_from_sat(
-    sat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *, strict: bool = True
-) -> FloatOrArray:
+def tat_from_sat(sat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
+                 strict: bool = True) -> FloatOrArray:
     """Total-air-temperature probe reading from static air temperature.
 
     Parameters
     ----------
-    {sat}
-    {mach}
-    {recovery}
-    {strict}
+    {sat, mach, recovery, strict}
 
     {broadcast}
 

@@ -8,6 +8,7 @@ from typing import Any
 import numpy as np
 from numpy.typing import NDArray
 
+from .._docs import fill_doc
 from .propagation import ErrorBudget
 from .sensitivity import DISPLAY_UNITS, OUTPUTS
 
@@ -19,6 +20,7 @@ _TITLES = {"pressure_altitude": "pressure altitude", "cas": "CAS", "mach": "Mach
            "tas": "TAS", "sat": "SAT", "eas": "EAS"}
 
 
+@fill_doc
 def plot_budget(
     budget: ErrorBudget, outputs: tuple[str, ...] | None = None, *, quantity: str = "rms",
     path: str | Path | None = None, pressure_unit: str = "Pa",
@@ -41,13 +43,11 @@ def plot_budget(
 
     Returns
     -------
-    matplotlib.figure.Figure
-        The figure, not attached to pyplot (no backend is selected or changed).
+    {out_figure}
 
     Raises
     ------
-    ImportError
-        matplotlib is not installed (it is an optional extra).
+    {no_matplotlib}
     ValueError
         An unknown output or quantity.
     """

@@ -223,6 +223,7 @@ def envelope(
     )
 
 
+@fill_doc
 def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
     """Chart of the envelope: CAS and TAS against pressure altitude, with limit lines.
 
@@ -236,13 +237,11 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
 
     Returns
     -------
-    matplotlib.figure.Figure
-        The figure, not attached to pyplot (no backend is selected or changed).
+    {out_figure}
 
     Raises
     ------
-    ImportError
-        matplotlib is not installed (it is an optional extra).
+    {no_matplotlib}
     """
     from matplotlib.figure import Figure
 

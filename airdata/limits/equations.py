@@ -92,17 +92,14 @@ def _checked_stall_mach(args: Inputs, prof: Profile) -> F64:
 
 
 @fill_doc
-def stall_eas(
-    weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, load_factor: ArrayLike = 1.0,
-    *, profile: Profile | str | None = None, strict: bool = True,
-) -> FloatOrArray:
+def stall_eas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike,
+              load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+              strict: bool = True) -> FloatOrArray:
     """Stall speed as an equivalent airspeed, from lift = load factor x weight.
 
     Parameters
     ----------
-    {weight}
-    {wing_area}
-    {cl_max}
+    {weight, wing_area, cl_max}
     load_factor : float or array_like, optional
         Load factor n = lift/weight, in (0, 10]; default 1 (level flight).
     profile : Profile or str, optional
@@ -141,22 +138,14 @@ def stall_eas(
 
 
 @fill_doc
-def stall_mach(
-    weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
-    load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def stall_mach(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
+               load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+               strict: bool = True) -> FloatOrArray:
     """Stall Mach number at static pressure ``ps``.
 
     Parameters
     ----------
-    {weight}
-    {wing_area}
-    {cl_max}
-    {ps}
-    {load_factor}
-    {profile_rho0_p0_a0_range}
-    {strict}
+    {weight, wing_area, cl_max, ps, load_factor, profile_rho0_p0_a0_range, strict}
 
     {broadcast}
 
@@ -167,8 +156,7 @@ def stall_mach(
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range input, stall EAS above 4000 m/s or stall Mach above 10.
+    {bad_stall_mach}
 
     Notes
     -----
@@ -185,22 +173,14 @@ def stall_mach(
 
 
 @fill_doc
-def stall_cas(
-    weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
-    load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
+              load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+              strict: bool = True) -> FloatOrArray:
     """Stall speed as a calibrated airspeed at static pressure ``ps``.
 
     Parameters
     ----------
-    {weight}
-    {wing_area}
-    {cl_max}
-    {ps}
-    {load_factor}
-    {profile_rho0_p0_a0_range}
-    {strict}
+    {weight, wing_area, cl_max, ps, load_factor, profile_rho0_p0_a0_range, strict}
 
     {broadcast}
 
@@ -237,21 +217,14 @@ def stall_cas(
 
 
 @fill_doc
-def stall_tas(
-    weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
-    sat: ArrayLike, load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: ArrayLike,
+              sat: ArrayLike, load_factor: ArrayLike = 1.0, *, profile: Profile | str | None = None,
+              strict: bool = True) -> FloatOrArray:
     """Stall speed as a true airspeed at static pressure ``ps`` and temperature ``sat``.
 
     Parameters
     ----------
-    {weight}
-    {wing_area}
-    {cl_max}
-    {ps}
-    {sat}
-    {load_factor}
+    {weight, wing_area, cl_max, ps, sat, load_factor}
     profile : Profile or str, optional
         Constants profile (supplies rho0, p0, a0, R and the pressure range).
     {strict}
@@ -265,8 +238,7 @@ def stall_tas(
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range input, stall EAS above 4000 m/s or stall Mach above 10.
+    {bad_stall_mach}
 
     Notes
     -----
@@ -293,10 +265,8 @@ def _cas_limit_qc(args: Inputs, prof: Profile) -> F64:
 
 
 @fill_doc
-def crossover_altitude(
-    cas_limit: ArrayLike, mach_limit: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def crossover_altitude(cas_limit: ArrayLike, mach_limit: ArrayLike, *,
+                       profile: Profile | str | None = None, strict: bool = True) -> FloatOrArray:
     """Pressure altitude at which a CAS limit and a subsonic Mach limit coincide.
 
     Below it the CAS limit is the lower speed, above it the Mach limit.
@@ -412,21 +382,15 @@ def _tiny_limits(args: Inputs, prof: Profile) -> tuple[NDArray[np.bool_], F64, F
 
 
 @fill_doc
-def max_operating_cas(
-    ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
-    profile: Profile | str | None = None, strict: bool = True,
-) -> FloatOrArray:
+def max_operating_cas(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
+                      profile: Profile | str | None = None, strict: bool = True) -> FloatOrArray:
     """Maximum operating calibrated airspeed at static pressure ``ps``.
 
     The lower of the CAS limit and the CAS of the Mach limit at that pressure.
 
     Parameters
     ----------
-    {ps}
-    {cas_limit}
-    {mach_limit}
-    {profile_p0_a0_range}
-    {strict}
+    {ps, cas_limit, mach_limit, profile_p0_a0_range, strict}
 
     {broadcast}
 
@@ -438,8 +402,7 @@ def max_operating_cas(
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range ``ps``, ``cas_limit`` or ``mach_limit``.
+    {bad_ps_limits}
 
     Notes
     -----
@@ -461,21 +424,15 @@ def max_operating_cas(
 
 
 @fill_doc
-def max_operating_mach(
-    ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
-    profile: Profile | str | None = None, strict: bool = True,
-) -> FloatOrArray:
+def max_operating_mach(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike, *,
+                       profile: Profile | str | None = None, strict: bool = True) -> FloatOrArray:
     """Maximum operating Mach number at static pressure ``ps``.
 
     The lower of the Mach limit and the Mach number of the CAS limit at that pressure.
 
     Parameters
     ----------
-    {ps}
-    {cas_limit}
-    {mach_limit}
-    {profile_p0_a0_range}
-    {strict}
+    {ps, cas_limit, mach_limit, profile_p0_a0_range, strict}
 
     {broadcast}
 
@@ -487,8 +444,7 @@ def max_operating_mach(
 
     Raises
     ------
-    DomainError
-        Bad or out-of-range ``ps``, ``cas_limit`` or ``mach_limit``.
+    {bad_ps_limits}
 
     Notes
     -----
@@ -510,10 +466,8 @@ def max_operating_mach(
 
 
 @fill_doc
-def ceiling_margin(
-    ps: ArrayLike, ceiling: ArrayLike, *, profile: Profile | str | None = None,
-    strict: bool = True,
-) -> FloatOrArray:
+def ceiling_margin(ps: ArrayLike, ceiling: ArrayLike, *, profile: Profile | str | None = None,
+                   strict: bool = True) -> FloatOrArray:
     """Margin to a maximum altitude given as a fixed pressure altitude.
 
     Parameters
@@ -521,8 +475,7 @@ def ceiling_margin(
     {ps}
     ceiling : float or array_like
         Maximum altitude, geopotential pressure altitude, m, in [-5000, 84852].
-    {profile}
-    {strict}
+    {profile, strict}
 
     {broadcast}
 
