@@ -2,9 +2,12 @@
 
 A docstring names a shared entry as ``{name}`` on a line of its own (indented like the
 other entries of its section), or several as ``{a, b, c}``, which stand one below the
-other; :func:`fill_doc` puts the text in when the module is imported, so ``help()`` and
-the documentation show it in full.  An entry's text is what stands under "Parameters"
-(or "Attributes"), "Returns" or "Raises", with the first line unindented.
+other.  A whole section made of shared entries is one line, ``{Parameters: a, b; c}``
+(likewise ``Attributes``, ``Returns``, ``Raises``): the heading, its underline, and the
+entries, a blank line where ``;`` stands.  :func:`fill_doc` puts the text in when the
+module is imported, so ``help()`` and the documentation show it in full.  An entry's
+text is what stands under "Parameters" (or "Attributes"), "Returns" or "Raises", with
+the first line unindented.
 """
 
 from __future__ import annotations
@@ -45,6 +48,10 @@ PARAMETERS: dict[str, str] = {
     "mach_limit": (
         "mach_limit : float or array_like\n"
         "    Mach limit, in (0, 10]."
+    ),
+    "precision": (
+        "precision : {\"double\", \"single\"}, optional\n"
+        "    Which build of the port to run."
     ),
     "profile": (
         "profile : Profile or str, optional\n"
@@ -162,20 +169,36 @@ for _table in (PARAMETERS, RETURNS, RAISES):
         raise ValueError(f"entries named twice: {sorted(_ENTRIES.keys() & _table.keys())}")
     _ENTRIES.update(_table)
 
+#: Names of entries, comma-separated (a long list may go on over lines).
+_NAMES = r"[a-z][A-Za-z0-9_]*(?:,\s+[a-z][A-Za-z0-9_]*)*"
+
 #: A field: ``{name}`` or ``{a, b, c}`` (names of entries; other braces, such as a
 #: numpydoc value set ``{"rms", "sd"}``, are text).
-_FIELD = re.compile(r"\{([a-z][A-Za-z0-9_]*(?:, [a-z][A-Za-z0-9_]*)*)\}")
+_FIELD = re.compile(r"\{(" + _NAMES + r")\}")
+
+#: A whole section: ``{Heading: a, b; c}``.
+_SECTION = re.compile(r"\{(Parameters|Attributes|Returns|Raises): (" + _NAMES + r"(?:;\s+"
+                      + _NAMES + r")*)\}")
+
+
+def _expand_section(field: re.Match[str]) -> str:
+    """The section a field names: heading, underline, entries (a blank line between the
+    groups that ``;`` separates)."""
+    heading = field.group(1)
+    groups = ("\n".join(_ENTRIES[name] for name in re.split(r",\s+", group))
+              for group in re.split(r";\s+", field.group(2)))
+    return _indent(f"{heading}\n{'-' * len(heading)}\n" + "\n\n".join(groups))
 
 
 def _expand(field: re.Match[str]) -> str:
     """The text of the entries a field names, one below the other (KeyError for an
     unknown name)."""
-    return _indent("\n".join(_ENTRIES[name] for name in field.group(1).split(", ")))
+    return _indent("\n".join(_ENTRIES[name] for name in re.split(r",\s+", field.group(1))))
 
 
 def fill_doc(obj: T) -> T:
-    """Put the shared text into the ``{name}`` and ``{a, b}`` fields of ``obj``'s docstring."""
+    """Put the shared text into the fields of ``obj``'s docstring (sections first)."""
     doc = getattr(obj, "__doc__", None)
     if doc:
-        obj.__doc__ = _FIELD.sub(_expand, doc)  # type: ignore[attr-defined]
+        obj.__doc__ = _FIELD.sub(_expand, _SECTION.sub(_expand_section, doc))  # type: ignore[attr-defined]
     return obj

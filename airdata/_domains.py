@@ -140,31 +140,27 @@ def setting(profile: Profile) -> Domain:
 
 
 #: Every argument domain of the C port, in the order of its ``ad_domain_id`` (the id is
-#: the index): name, and the Domain of a profile.  The one table from which the enum of
-#: airdata_batch.h, the table of domains.c, the AD_<NAME>_LO/HI constants and the ids of
-#: airdata.cport are generated or read (bindings/c/tools/generate.py).
-C_DOMAINS: tuple[tuple[str, Callable[[Profile], Domain]], ...] = (
-    ("mach", lambda p: MACH),
-    ("speed", lambda p: SPEED),
-    ("temperature", lambda p: TEMPERATURE),
-    ("delta_t", lambda p: DELTA_T),
-    ("recovery", lambda p: RECOVERY),
-    ("impact_pressure", lambda p: IMPACT_PRESSURE),
-    ("elevation", lambda p: ELEVATION),
-    ("altitude", altitude),
-    ("geometric", geometric),
-    ("pressure", pressure),
-    ("setting", setting),
-    ("total_pressure", lambda p: TOTAL_PRESSURE),
-    ("noise_band", lambda p: NOISE),
-    ("weight", lambda p: WEIGHT),
-    ("wing_area", lambda p: WING_AREA),
-    ("cl_max", lambda p: CL_MAX),
-    ("load_factor", lambda p: LOAD_FACTOR),
-    ("cas_limit", lambda p: CAS_LIMIT),
-    ("mach_limit", lambda p: MACH_LIMIT),
-    ("subsonic_mach_limit", lambda p: SUBSONIC_MACH_LIMIT),
-)
+#: the position): name, and its Domain, or the function giving the Domain of a profile.
+_C_ORDER: dict[str, Domain | Callable[[Profile], Domain]] = {
+    "mach": MACH, "speed": SPEED, "temperature": TEMPERATURE, "delta_t": DELTA_T,
+    "recovery": RECOVERY, "impact_pressure": IMPACT_PRESSURE, "elevation": ELEVATION,
+    "altitude": altitude, "geometric": geometric, "pressure": pressure, "setting": setting,
+    "total_pressure": TOTAL_PRESSURE, "noise_band": NOISE, "weight": WEIGHT,
+    "wing_area": WING_AREA, "cl_max": CL_MAX, "load_factor": LOAD_FACTOR,
+    "cas_limit": CAS_LIMIT, "mach_limit": MACH_LIMIT, "subsonic_mach_limit": SUBSONIC_MACH_LIMIT,
+}
+
+
+def _of_profile(d: Domain | Callable[[Profile], Domain]) -> Callable[[Profile], Domain]:
+    """``d`` as a function of the profile (a fixed Domain ignores it)."""
+    return d if callable(d) else (lambda p: d)
+
+
+#: The table above as (name, Domain of a profile) pairs: the one table from which the enum
+#: of airdata_batch.h, the table of domains.c, the AD_<NAME>_LO/HI constants and the ids
+#: of airdata.cport are generated or read (bindings/c/tools/generate.py).
+C_DOMAINS: tuple[tuple[str, Callable[[Profile], Domain]], ...] = tuple(
+    (name, _of_profile(d)) for name, d in _C_ORDER.items())
 
 
 def c_domain_id(name: str) -> int:

@@ -10,7 +10,8 @@ Every public function follows one recipe:
 2. The kernel computes on ``args["ps"]`` etc., where bad elements have been replaced by
    a harmless in-range value.
 3. ``args.flag(mask, status, what, value, valid)`` reports a derived quantity out of
-   range (same strict/non-strict rules).
+   range (same strict/non-strict rules); ``args.flag_above(value, limit, what, valid)``
+   is the common case, a derived quantity above its upper limit.
 4. ``args.finish(y)`` puts NaN where any input was bad and returns a Python float for
    scalar input.
 """
@@ -147,6 +148,15 @@ class Inputs:
         if mask.any():
             st = np.where(mask, np.int8(status), np.int8(Status.OK)).astype(np.int8)
             self._report(name, np.broadcast_to(value, self.shape), st, valid)
+
+    def flag_above(self, value: NDArray[np.float64], limit: float, name: str, valid: str,
+                   shown: NDArray[np.float64] | None = None) -> NDArray[np.bool_]:
+        """Report a derived quantity ``name`` OUT_OF_RANGE where ``value > limit``, the
+        values shown being ``shown`` (default ``value``); the mask, so that the caller can
+        keep those elements out of its kernel."""
+        over = value > limit
+        self.flag(over, Status.OUT_OF_RANGE, name, value if shown is None else shown, valid)
+        return over
 
     @property
     def any_bad(self) -> bool:

@@ -159,11 +159,7 @@ def geometric_altitude(h: ArrayLike, *, profile: Profile | str | None = None,
                        strict: bool = True) -> FloatOrArray:
     """Geometric altitude from geopotential altitude, ATM-8: z = r0 h/(r0 - h).
 
-    Parameters
-    ----------
-    {h, profile_r0, strict}
-
-    {broadcast}
+    {Parameters: h, profile_r0, strict; broadcast}
 
     Returns
     -------

@@ -162,10 +162,9 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     zeroed = (qc < 0.0) & ~args.bad if args.any_bad else qc < 0.0
     qc = np.maximum(qc, 0.0)
     x = qc / p
-    args.flag(x > RATIO_LIMIT, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
+    args.flag_above(x, RATIO_LIMIT, "qc/ps", f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     x0 = qc / prof.p0
-    args.flag(x0 > RATIO_LIMIT, Status.OUT_OF_RANGE, "qc/p0", x0,
-              f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
+    args.flag_above(x0, RATIO_LIMIT, "qc/p0", f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     if args.any_bad:
         x = np.where(args.bad, 0.0, x)
         x0 = np.where(args.bad, 0.0, x0)

@@ -39,6 +39,7 @@ from numpy.typing import NDArray
 
 from . import _domains as dom
 from . import chain as _chain
+from ._docs import fill_doc
 from ._inputs import ArrayLike, Domain, FloatOrArray
 from .atmosphere import Atmosphere
 from .atmosphere import atmosphere as _ref_atmosphere
@@ -182,6 +183,7 @@ def _simple(cname: str, reference: Callable[..., Any], strict: bool, precision: 
     return b.finish(out)
 
 
+@fill_doc
 def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | None = None,
                strict: bool = True, precision: str = "double") -> Atmosphere:
     """Port of :func:`airdata.atmosphere` (ATM-2 .. ATM-6).
@@ -196,11 +198,9 @@ def atmosphere(h: ArrayLike, dT: ArrayLike = 0.0, *, profile: Profile | str | No
         Constants profile, ``"icao"`` (default) or ``"us1976"``: selects the build.
     strict : bool, optional
         Raise on the first bad element (default) or give NaN for just the bad elements.
-    precision : {"double", "single"}, optional
-        Which build of the port to run.
+    {precision}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------
@@ -307,6 +307,7 @@ _AIR_FIELDS = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", 
                "tas", "sat", "density", "density_altitude", "dynamic_pressure")
 
 
+@fill_doc
 def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike = 1.0,
              setting: ArrayLike | None = None, *, noise_band: float = _chain.NOISE_BAND,
              profile: Profile | str | None = None, strict: bool = True,
@@ -317,11 +318,9 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     ----------
     ps, pt, tat, recovery, setting, noise_band, profile, strict
         As :func:`airdata.air_data` (``profile`` selects the build).
-    precision : {"double", "single"}, optional
-        Which build of the port to run.
+    {precision}
 
-    Inputs broadcast against each other like a numpy ufunc; scalar inputs give Python
-    floats.
+    {broadcast}
 
     Returns
     -------

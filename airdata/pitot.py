@@ -51,7 +51,6 @@ from ._blocks import elementwise
 from ._docs import fill_doc
 from ._inputs import ArrayLike, FloatOrArray, Inputs
 from .profiles import Profile, get_profile
-from .status import Status
 
 __all__ = [
     "impact_pressure_from_mach",
@@ -246,19 +245,11 @@ def impact_pressure_from_mach(mach: ArrayLike, ps: ArrayLike, *,
                               strict: bool = True) -> FloatOrArray:
     """Impact pressure qc = pt - ps sensed by a pitot probe at Mach ``mach``.
 
-    Parameters
-    ----------
-    {mach, ps, profile_range, strict}
+    {Parameters: mach, ps, profile_range, strict; broadcast}
 
-    {broadcast}
+    {Returns: out_impact_pressure}
 
-    Returns
-    -------
-    {out_impact_pressure}
-
-    Raises
-    ------
-    {bad_mach_ps}
+    {Raises: bad_mach_ps}
 
     Notes
     -----
@@ -286,9 +277,7 @@ def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *, profile: Profile 
 
     {broadcast}
 
-    Returns
-    -------
-    {out_mach}
+    {Returns: out_mach}
 
     Raises
     ------
@@ -307,8 +296,7 @@ def mach_from_impact_pressure(qc: ArrayLike, ps: ArrayLike, *, profile: Profile 
     prof = get_profile(profile)
     args = Inputs(strict, qc=(qc, dom.IMPACT_PRESSURE), ps=(ps, dom.pressure(prof)))
     x = args["qc"] / args["ps"]
-    over = x > RATIO_LIMIT
-    args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
+    over = args.flag_above(x, RATIO_LIMIT, "qc/ps", f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     return args.finish(mach_from_pressures(np.where(over, 0.0, args["qc"]), args["ps"]))
 
 
@@ -325,9 +313,7 @@ def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = 
 
     {broadcast}
 
-    Returns
-    -------
-    {out_impact_pressure}
+    {Returns: out_impact_pressure}
 
     Raises
     ------
@@ -345,9 +331,8 @@ def impact_pressure_from_cas(cas: ArrayLike, *, profile: Profile | str | None = 
     prof = get_profile(profile)
     args = Inputs(strict, cas=(cas, dom.SPEED))
     m = args["cas"] / prof.a0
-    over = m > MACH_LIMIT
-    args.flag(over, Status.OUT_OF_RANGE, "cas", args["cas"],
-              f"[0, {dom.MACH_MAX * prof.a0!r}] m/s")
+    over = args.flag_above(m, MACH_LIMIT, "cas",
+                           f"[0, {dom.MACH_MAX * prof.a0!r}] m/s", shown=args["cas"])
     return args.finish(impact_from_mach(np.where(over, 0.0, m), prof.p0))
 
 
@@ -364,9 +349,7 @@ def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = N
 
     {broadcast}
 
-    Returns
-    -------
-    {out_cas}
+    {Returns: out_cas}
 
     Raises
     ------
@@ -384,8 +367,7 @@ def cas_from_impact_pressure(qc: ArrayLike, *, profile: Profile | str | None = N
     prof = get_profile(profile)
     args = Inputs(strict, qc=(qc, dom.IMPACT_PRESSURE))
     x = args["qc"] / prof.p0
-    over = x > RATIO_LIMIT
-    args.flag(over, Status.OUT_OF_RANGE, "qc", args["qc"],
-              f"[0, {RATIO_MAX * prof.p0!r}] Pa (CAS <= 10 a0)")
+    over = args.flag_above(x, RATIO_LIMIT, "qc",
+                           f"[0, {RATIO_MAX * prof.p0!r}] Pa (CAS <= 10 a0)", shown=args["qc"])
     return args.finish(prof.a0 * mach_from_pressures(np.where(over, 0.0, args["qc"]),
                                                      np.full_like(x, prof.p0)))

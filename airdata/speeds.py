@@ -22,7 +22,6 @@ from .pitot import (
     tiny_mach_of_cas,
 )
 from .profiles import GAMMA, Profile, get_profile
-from .status import Status
 
 __all__ = [
     "cas_from_mach",
@@ -51,9 +50,7 @@ def cas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | No
 
     {broadcast}
 
-    Returns
-    -------
-    {out_cas}
+    {Returns: out_cas}
 
     Raises
     ------
@@ -72,8 +69,7 @@ def cas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | No
     prof = get_profile(profile)
     args = Inputs(strict, mach=(mach, dom.MACH), ps=(ps, dom.pressure(prof)))
     x = args["ps"] * ratio_from_mach(args["mach"]) / prof.p0
-    over = x > RATIO_LIMIT
-    args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
+    over = args.flag_above(x, RATIO_LIMIT, "qc/p0", f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     m = args["mach"]
     k = args["ps"] / prof.p0
     return args.finish(np.where(m < TINY_MACH, tiny_linear(m, k, prof.a0),
@@ -96,9 +92,7 @@ def mach_from_cas(cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | Non
 
     {broadcast}
 
-    Returns
-    -------
-    {out_mach}
+    {Returns: out_mach}
 
     Raises
     ------
@@ -117,12 +111,10 @@ def mach_from_cas(cas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | Non
     prof = get_profile(profile)
     args = Inputs(strict, cas=(cas, dom.SPEED), ps=(ps, dom.pressure(prof)))
     m0 = args["cas"] / prof.a0
-    over0 = m0 > MACH_LIMIT
-    args.flag(over0, Status.OUT_OF_RANGE, "cas", args["cas"],
-              f"[0, {dom.MACH_MAX * prof.a0!r}] m/s")
+    over0 = args.flag_above(m0, MACH_LIMIT, "cas",
+                            f"[0, {dom.MACH_MAX * prof.a0!r}] m/s", shown=args["cas"])
     x = prof.p0 * ratio_from_mach(np.where(over0, 0.0, m0)) / args["ps"]
-    over = x > RATIO_LIMIT
-    args.flag(over, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
+    over = args.flag_above(x, RATIO_LIMIT, "qc/ps", f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     return args.finish(np.where(m0 < TINY_MACH,
                                 tiny_mach_of_cas(args["cas"], prof.p0 / args["ps"], prof.a0),
                                 mach_from_ratio(np.where(over, 0.0, x))))
@@ -133,20 +125,14 @@ def eas_from_mach(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str | No
                   strict: bool = True) -> FloatOrArray:
     """Equivalent airspeed at Mach ``mach`` and static pressure ``ps``.
 
-    Parameters
-    ----------
-    {mach, ps, profile_p0_a0, strict}
-
-    {broadcast}
+    {Parameters: mach, ps, profile_p0_a0, strict; broadcast}
 
     Returns
     -------
     float or ndarray
         Equivalent airspeed, m/s.
 
-    Raises
-    ------
-    {bad_mach_ps}
+    {Raises: bad_mach_ps}
 
     Notes
     -----
@@ -174,9 +160,7 @@ def mach_from_eas(eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | Non
 
     {broadcast}
 
-    Returns
-    -------
-    {out_mach}
+    {Returns: out_mach}
 
     Raises
     ------
@@ -194,7 +178,7 @@ def mach_from_eas(eas: ArrayLike, ps: ArrayLike, *, profile: Profile | str | Non
     prof = get_profile(profile)
     args = Inputs(strict, eas=(eas, dom.SPEED), ps=(ps, dom.pressure(prof)))
     m = args["eas"] / (prof.a0 * np.sqrt(args["ps"] / prof.p0))
-    args.flag(m > MACH_LIMIT, Status.OUT_OF_RANGE, "Mach", m, "[0, 10.0]")
+    args.flag_above(m, MACH_LIMIT, "Mach", "[0, 10.0]")
     return args.finish(m)
 
 
@@ -203,13 +187,7 @@ def tas_from_mach(mach: ArrayLike, sat: ArrayLike, *, profile: Profile | str | N
                   strict: bool = True) -> FloatOrArray:
     """True airspeed at Mach ``mach`` and static air temperature ``sat``.
 
-    Parameters
-    ----------
-    {mach, sat}
-    {profile_R}
-    {strict}
-
-    {broadcast}
+    {Parameters: mach, sat, profile_R, strict; broadcast}
 
     Returns
     -------
@@ -249,9 +227,7 @@ def mach_from_tas(tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | No
 
     {broadcast}
 
-    Returns
-    -------
-    {out_mach}
+    {Returns: out_mach}
 
     Raises
     ------
@@ -269,7 +245,7 @@ def mach_from_tas(tas: ArrayLike, sat: ArrayLike, *, profile: Profile | str | No
     prof = get_profile(profile)
     args = Inputs(strict, tas=(tas, dom.SPEED), sat=(sat, dom.TEMPERATURE))
     m = args["tas"] / np.sqrt((GAMMA * prof.R) * args["sat"])
-    args.flag(m > MACH_LIMIT, Status.OUT_OF_RANGE, "Mach", m, "[0, 10.0]")
+    args.flag_above(m, MACH_LIMIT, "Mach", "[0, 10.0]")
     return args.finish(m)
 
 
@@ -278,11 +254,7 @@ def dynamic_pressure(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str |
                      strict: bool = True) -> FloatOrArray:
     """Dynamic pressure q = rho V^2 / 2 = (gamma/2) ps M^2.
 
-    Parameters
-    ----------
-    {mach, ps, profile_range, strict}
-
-    {broadcast}
+    {Parameters: mach, ps, profile_range, strict; broadcast}
 
     Returns
     -------
@@ -290,9 +262,7 @@ def dynamic_pressure(mach: ArrayLike, ps: ArrayLike, *, profile: Profile | str |
         Dynamic pressure, Pa.  Not the impact pressure: the two differ by the
         compressibility of the air.
 
-    Raises
-    ------
-    {bad_mach_ps}
+    {Raises: bad_mach_ps}
 
     Notes
     -----

@@ -18,11 +18,7 @@ def sat_from_tat(tat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
                  strict: bool = True) -> FloatOrArray:
     """Static air temperature from the total-air-temperature probe reading.
 
-    Parameters
-    ----------
-    {tat, mach, recovery, strict}
-
-    {broadcast}
+    {Parameters: tat, mach, recovery, strict; broadcast}
 
     Returns
     -------
@@ -53,11 +49,7 @@ def tat_from_sat(sat: ArrayLike, mach: ArrayLike, recovery: ArrayLike = 1.0, *,
                  strict: bool = True) -> FloatOrArray:
     """Total-air-temperature probe reading from static air temperature.
 
-    Parameters
-    ----------
-    {sat, mach, recovery, strict}
-
-    {broadcast}
+    {Parameters: sat, mach, recovery, strict; broadcast}
 
     Returns
     -------

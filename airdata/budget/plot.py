@@ -41,9 +41,7 @@ def plot_budget(
         Unit in which the title states the pressure sensors' accuracies (default Pa;
         ``airdata budget`` passes the unit they were given in).
 
-    Returns
-    -------
-    {out_figure}
+    {Returns: out_figure}
 
     Raises
     ------

@@ -190,11 +190,10 @@ def error_budget(
     ps = standard_pressure(hh, i, t)
     m0 = vv / prof.a0
     args = Inputs(True, cas=(vv, _SPEED))
-    args.flag(m0 > dom.MACH_MAX, Status.OUT_OF_RANGE, "cas", vv,
-              f"(0, {dom.MACH_MAX * prof.a0!r}] m/s")
+    args.flag_above(m0, dom.MACH_MAX, "cas", f"(0, {dom.MACH_MAX * prof.a0!r}] m/s", shown=vv)
     qc = prof.p0 * ratio_from_mach(m0)
-    args.flag(qc / ps > RATIO_MAX, Status.OUT_OF_RANGE, "Mach at grid point", qc / ps,
-              f"qc/ps in [0, {RATIO_MAX!r}] (Mach <= 10)")
+    args.flag_above(qc / ps, RATIO_MAX, "Mach at grid point",
+                    f"qc/ps in [0, {RATIO_MAX!r}] (Mach <= 10)")
     mach = mach_from_ratio(qc / ps)
     sat = standard_temperature(hh, i, t) + dT
     tat = sat * (1.0 + 0.2 * recovery * mach * mach)

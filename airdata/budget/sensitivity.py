@@ -14,7 +14,6 @@ from .._layers import layer_of_altitude, layer_table, standard_temperature
 from ..altimetry import altitude_of_pressure
 from ..pitot import RATIO_MAX, mach_from_ratio, ratio_from_mach
 from ..profiles import GAMMA, Profile, get_profile
-from ..status import Status
 
 __all__ = ["OUTPUTS", "DISPLAY_UNITS", "ratio_slope", "Sensitivities", "sensitivities"]
 
@@ -129,10 +128,9 @@ def sensitivities(
                   tat=(tat, dom.TEMPERATURE), recovery=(recovery, dom.RECOVERY))
     p, q, tt, r = args["ps"], args["qc"], args["tat"], args["recovery"]
     x = q / p
-    args.flag(x > RATIO_MAX, Status.OUT_OF_RANGE, "qc/ps", x, f"[0, {RATIO_MAX!r}] (Mach <= 10)")
+    args.flag_above(x, RATIO_MAX, "qc/ps", f"[0, {RATIO_MAX!r}] (Mach <= 10)")
     x0 = q / prof.p0
-    args.flag(x0 > RATIO_MAX, Status.OUT_OF_RANGE, "qc/p0", x0,
-              f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
+    args.flag_above(x0, RATIO_MAX, "qc/p0", f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     x = np.where(args.bad, 0.1, x)
     x0 = np.where(args.bad, 0.1, x0)
     t = layer_table(prof)

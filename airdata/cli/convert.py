@@ -12,20 +12,12 @@ import argparse
 import json
 import sys
 
+from .. import speeds as spd
 from .. import units as u
 from ..altimetry import pressure_altitude, pressure_at_altitude
 from ..atmosphere import atmosphere
 from ..pitot import impact_pressure_from_mach
 from ..profiles import get_profile
-from ..speeds import (
-    cas_from_mach,
-    dynamic_pressure,
-    eas_from_mach,
-    mach_from_cas,
-    mach_from_eas,
-    mach_from_tas,
-    tas_from_mach,
-)
 from ..status import DomainError
 from ..temperature import tat_from_sat
 from .parsers import add_command
@@ -109,19 +101,19 @@ def run(args: argparse.Namespace) -> int:
             dt = 0.0 if args.isa_dev is None else args.isa_dev.si
             sat = float(atmosphere(hp, dt, profile=prof).temperature)
         if args.cas is not None:
-            given, mach = "cas", float(mach_from_cas(args.cas.si, ps, profile=prof))
+            given, mach = "cas", float(spd.mach_from_cas(args.cas.si, ps, profile=prof))
         elif args.eas is not None:
-            given, mach = "eas", float(mach_from_eas(args.eas.si, ps, profile=prof))
+            given, mach = "eas", float(spd.mach_from_eas(args.eas.si, ps, profile=prof))
         elif args.tas is not None:
-            given, mach = "tas", float(mach_from_tas(args.tas.si, sat, profile=prof))
+            given, mach = "tas", float(spd.mach_from_tas(args.tas.si, sat, profile=prof))
         else:
             given, mach = "mach", args.mach.si
         res = {
             "mach": (mach, "dimensionless"),
-            "cas": (float(cas_from_mach(mach, ps, profile=prof)), "speed"),
-            "eas": (float(eas_from_mach(mach, ps, profile=prof)), "speed"),
-            "tas": (float(tas_from_mach(mach, sat, profile=prof)), "speed"),
-            "speed_of_sound": (float(tas_from_mach(1.0, sat, profile=prof)), "speed"),
+            "cas": (float(spd.cas_from_mach(mach, ps, profile=prof)), "speed"),
+            "eas": (float(spd.eas_from_mach(mach, ps, profile=prof)), "speed"),
+            "tas": (float(spd.tas_from_mach(mach, sat, profile=prof)), "speed"),
+            "speed_of_sound": (float(spd.tas_from_mach(1.0, sat, profile=prof)), "speed"),
             "pressure_altitude": (hp, "length"),
             "static_pressure": (ps, "pressure"),
             "sat": (sat, "temperature"),
@@ -129,7 +121,7 @@ def run(args: argparse.Namespace) -> int:
             "tat": (float(tat_from_sat(sat, mach, args.recovery.si)), "temperature"),
             "impact_pressure": (float(impact_pressure_from_mach(mach, ps, profile=prof)),
                                 "pressure"),
-            "dynamic_pressure": (float(dynamic_pressure(mach, ps, profile=prof)), "pressure"),
+            "dynamic_pressure": (float(spd.dynamic_pressure(mach, ps, profile=prof)), "pressure"),
         }
     except DomainError as exc:
         given = {"cas": args.cas, "eas": args.eas, "tas": args.tas, "mach": args.mach,

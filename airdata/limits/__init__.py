@@ -36,29 +36,10 @@ equivalent airspeed).
 
 from __future__ import annotations
 
-from .envelope import Envelope, SpeedSet, envelope, plot_envelope
-from .equations import (
-    CAS_LIMIT,
-    CL_MAX,
-    LOAD_FACTOR,
-    MACH_LIMIT,
-    SUBSONIC_MACH_LIMIT,
-    WEIGHT,
-    WING_AREA,
-    ceiling_margin,
-    crossover_altitude,
-    max_operating_cas,
-    max_operating_mach,
-    stall_cas,
-    stall_eas,
-    stall_mach,
-    stall_tas,
-)
+# Each module's __all__ is the one list of its public names; the package re-exports both.
+from .envelope import *  # noqa: F403
+from .envelope import __all__ as _envelope_names
+from .equations import *  # noqa: F403
+from .equations import __all__ as _equation_names
 
-__all__ = [
-    "WEIGHT", "WING_AREA", "CL_MAX", "LOAD_FACTOR", "CAS_LIMIT", "MACH_LIMIT",
-    "SUBSONIC_MACH_LIMIT",
-    "stall_eas", "stall_mach", "stall_cas", "stall_tas",
-    "crossover_altitude", "max_operating_cas", "max_operating_mach", "ceiling_margin",
-    "SpeedSet", "Envelope", "envelope", "plot_envelope",
-]
+__all__ = [*_equation_names, *_envelope_names]

@@ -235,13 +235,9 @@ def plot_envelope(env: Envelope, path: str | Path | None = None) -> Any:
     path : str or Path, optional
         Write the chart there (format from the suffix: .png, .svg, .pdf).
 
-    Returns
-    -------
-    {out_figure}
+    {Returns: out_figure}
 
-    Raises
-    ------
-    {no_matplotlib}
+    {Raises: no_matplotlib}
     """
     from matplotlib.figure import Figure
 

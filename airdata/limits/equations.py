@@ -6,6 +6,8 @@ Mirrors bindings/c/src/limits.c.
 
 from __future__ import annotations
 
+from typing import NamedTuple
+
 import numpy as np
 from numpy.typing import NDArray
 
@@ -78,16 +80,14 @@ def _stall_args(strict: bool, weight: ArrayLike, wing_area: ArrayLike, cl_max: A
 def _checked_stall_eas(args: Inputs, rho0: float) -> F64:
     eas = _stall_eas_kernel(args["weight"], args["wing_area"], args["cl_max"],
                             args["load_factor"], rho0)
-    over = eas > dom.SPEED.hi
-    args.flag(over, Status.OUT_OF_RANGE, "stall EAS", eas, dom.SPEED.describe())
+    over = args.flag_above(eas, dom.SPEED.hi, "stall EAS", dom.SPEED.describe())
     return np.where(over, 0.0, eas)
 
 
 def _checked_stall_mach(args: Inputs, prof: Profile) -> F64:
     eas = _checked_stall_eas(args, prof.rho0)
     m = eas / (prof.a0 * np.sqrt(args["ps"] / prof.p0))
-    over = m > dom.MACH_MAX
-    args.flag(over, Status.OUT_OF_RANGE, "stall Mach", m, f"[0, {dom.MACH_MAX!r}]")
+    over = args.flag_above(m, dom.MACH_MAX, "stall Mach", f"[0, {dom.MACH_MAX!r}]")
     return np.where(over, 0.0, m)
 
 
@@ -143,20 +143,17 @@ def stall_mach(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: A
                strict: bool = True) -> FloatOrArray:
     """Stall Mach number at static pressure ``ps``.
 
-    Parameters
-    ----------
-    {weight, wing_area, cl_max, ps, load_factor, profile_rho0_p0_a0_range, strict}
+    The stall EAS of :func:`stall_eas` as a Mach number at that pressure.
 
-    {broadcast}
+    {Parameters: weight, wing_area, cl_max, ps, load_factor, profile_rho0_p0_a0_range,
+                 strict; broadcast}
 
     Returns
     -------
     float or ndarray
         Stall Mach number.
 
-    Raises
-    ------
-    {bad_stall_mach}
+    {Raises: bad_stall_mach}
 
     Notes
     -----
@@ -178,11 +175,11 @@ def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: Ar
               strict: bool = True) -> FloatOrArray:
     """Stall speed as a calibrated airspeed at static pressure ``ps``.
 
-    Parameters
-    ----------
-    {weight, wing_area, cl_max, ps, load_factor, profile_rho0_p0_a0_range, strict}
+    What the airspeed indicator shows at the stall: the stall Mach number of
+    :func:`stall_mach` through the pitot relation.
 
-    {broadcast}
+    {Parameters: weight, wing_area, cl_max, ps, load_factor, profile_rho0_p0_a0_range,
+                 strict; broadcast}
 
     Returns
     -------
@@ -210,8 +207,7 @@ def stall_cas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: Ar
                        ps=(ps, dom.pressure(prof)))
     m = _checked_stall_mach(args, prof)
     x = args["ps"] * ratio_from_mach(m) / prof.p0
-    over = x > RATIO_MAX
-    args.flag(over, Status.OUT_OF_RANGE, "qc/p0", x, f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
+    over = args.flag_above(x, RATIO_MAX, "qc/p0", f"[0, {RATIO_MAX!r}] (CAS <= 10 a0)")
     return args.finish(np.where(m < TINY_MACH, tiny_linear(m, args["ps"] / prof.p0, prof.a0),
                                 prof.a0 * mach_from_ratio(np.where(over, 0.0, x))))
 
@@ -236,9 +232,7 @@ def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: Ar
     float or ndarray
         Stall true airspeed, m/s (= stall EAS x sqrt(rho0/rho)).
 
-    Raises
-    ------
-    {bad_stall_mach}
+    {Raises: bad_stall_mach}
 
     Notes
     -----
@@ -258,9 +252,8 @@ def stall_tas(weight: ArrayLike, wing_area: ArrayLike, cl_max: ArrayLike, ps: Ar
 def _cas_limit_qc(args: Inputs, prof: Profile) -> F64:
     """PIT-3 on the CAS limit, with the CAS <= 10 a0 check."""
     m0 = args["cas_limit"] / prof.a0
-    over = m0 > dom.MACH_MAX
-    args.flag(over, Status.OUT_OF_RANGE, "cas_limit", args["cas_limit"],
-              f"(0, {dom.MACH_MAX * prof.a0!r}] m/s")
+    over = args.flag_above(m0, dom.MACH_MAX, "cas_limit",
+                           f"(0, {dom.MACH_MAX * prof.a0!r}] m/s", shown=args["cas_limit"])
     return impact_from_mach(np.where(over, 0.0, m0), prof.p0)
 
 
@@ -362,23 +355,33 @@ def _envelope_crossover(cas_limit: float, mach_limit: float, prof: Profile) -> f
     return float(lenient.finish(_crossover(lenient, lenient["mach_limit"], prof)))
 
 
-def _limit_args(strict: bool, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike,
-                prof: Profile) -> tuple[Inputs, F64, F64]:
+class _Limits(NamedTuple):
+    """The checked arguments of LIM-4 and what both of its functions compare."""
+
+    args: Inputs
+    prof: Profile
+    #: Impact pressure of the CAS limit (p0 f(cas/a0)) and of the Mach limit (ps f(M)), Pa.
+    qc_cas: F64
+    qc_mach: F64
+    #: Where both limits are below Mach 2^-40; there cas/a0 and M sqrt(ps/p0), both times
+    #: ``pitot.TINY_SCALE`` (normal even for subnormal limits, so that the comparison is
+    #: decided at full precision; bit-identical decisions elsewhere).
+    tiny: NDArray[np.bool_]
+    m0: F64
+    m_eq: F64
+
+
+def _limits(strict: bool, ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike,
+            profile: Profile | str | None) -> _Limits:
+    """Check the arguments of LIM-4 and compute what both of its functions compare."""
+    prof = get_profile(profile)
     args = Inputs(strict, ps=(ps, dom.pressure(prof)), cas_limit=(cas_limit, CAS_LIMIT),
                   mach_limit=(mach_limit, MACH_LIMIT))
-    qc_cas = _cas_limit_qc(args, prof)
-    qc_mach = impact_from_mach(args["mach_limit"], args["ps"])
-    return args, qc_cas, qc_mach
-
-
-def _tiny_limits(args: Inputs, prof: Profile) -> tuple[NDArray[np.bool_], F64, F64]:
-    """Where both limits are below Mach 2^-40: the mask, and cas/a0 and M sqrt(ps/p0)
-    both times ``pitot.TINY_SCALE`` (normal even for subnormal limits, so that the
-    comparison is decided at full precision; bit-identical decisions elsewhere)."""
-    m0 = args["cas_limit"] / prof.a0
     m = args["mach_limit"]
-    return ((m0 < TINY_MACH) & (m < TINY_MACH), (args["cas_limit"] * TINY_SCALE) / prof.a0,
-            (m * TINY_SCALE) * np.sqrt(args["ps"] / prof.p0))
+    return _Limits(args, prof, _cas_limit_qc(args, prof), impact_from_mach(m, args["ps"]),
+                   (args["cas_limit"] / prof.a0 < TINY_MACH) & (m < TINY_MACH),
+                   (args["cas_limit"] * TINY_SCALE) / prof.a0,
+                   (m * TINY_SCALE) * np.sqrt(args["ps"] / prof.p0))
 
 
 @fill_doc
@@ -388,11 +391,7 @@ def max_operating_cas(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike
 
     The lower of the CAS limit and the CAS of the Mach limit at that pressure.
 
-    Parameters
-    ----------
-    {ps, cas_limit, mach_limit, profile_p0_a0_range, strict}
-
-    {broadcast}
+    {Parameters: ps, cas_limit, mach_limit, profile_p0_a0_range, strict; broadcast}
 
     Returns
     -------
@@ -400,21 +399,19 @@ def max_operating_cas(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLike
         Maximum operating CAS, m/s: exactly ``cas_limit`` where the CAS limit governs
         (below the crossover altitude), a0 F^-1(ps f(M)/p0) above it.
 
-    Raises
-    ------
-    {bad_ps_limits}
+    {Raises: bad_ps_limits}
 
     Notes
     -----
-    LIM-4, compared through impact pressure (see the module docstring).
+    LIM-4: the two limits compared through impact pressure (see the module docstring);
+    where the Mach limit governs, cas = a0 F^-1(ps f(M)/p0).
 
     References
     ----------
     NACA Report 1135 (1953), eqs. 44 and 100.
     """
-    prof = get_profile(profile)
-    args, qc_cas, qc_mach = _limit_args(strict, ps, cas_limit, mach_limit, prof)
-    tiny, m0, m_eq = _tiny_limits(args, prof)
+    args, prof, qc_cas, qc_mach, tiny, m0, m_eq = _limits(strict, ps, cas_limit, mach_limit,
+                                                          profile)
     by_cas = np.where(tiny, m0 <= m_eq, qc_cas <= qc_mach)
     x = np.where(by_cas, 0.0, qc_mach / prof.p0)  # < qc_cas/p0 <= RATIO_MAX
     m = args["mach_limit"]
@@ -430,11 +427,7 @@ def max_operating_mach(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLik
 
     The lower of the Mach limit and the Mach number of the CAS limit at that pressure.
 
-    Parameters
-    ----------
-    {ps, cas_limit, mach_limit, profile_p0_a0_range, strict}
-
-    {broadcast}
+    {Parameters: ps, cas_limit, mach_limit, profile_p0_a0_range, strict; broadcast}
 
     Returns
     -------
@@ -442,21 +435,19 @@ def max_operating_mach(ps: ArrayLike, cas_limit: ArrayLike, mach_limit: ArrayLik
         Maximum operating Mach number: exactly ``mach_limit`` where the Mach limit
         governs (above the crossover altitude), F^-1(p0 f(cas/a0)/ps) below it.
 
-    Raises
-    ------
-    {bad_ps_limits}
+    {Raises: bad_ps_limits}
 
     Notes
     -----
-    LIM-4, compared through impact pressure (see the module docstring).
+    LIM-4: the two limits compared through impact pressure (see the module docstring);
+    where the CAS limit governs, M = F^-1(p0 f(cas/a0)/ps).
 
     References
     ----------
     NACA Report 1135 (1953), eqs. 44 and 100.
     """
-    prof = get_profile(profile)
-    args, qc_cas, qc_mach = _limit_args(strict, ps, cas_limit, mach_limit, prof)
-    tiny, m0, m_eq = _tiny_limits(args, prof)
+    args, prof, qc_cas, qc_mach, tiny, m0, m_eq = _limits(strict, ps, cas_limit, mach_limit,
+                                                          profile)
     by_mach = np.where(tiny, m_eq <= m0, qc_mach <= qc_cas)
     x = np.where(by_mach, 0.0, qc_cas / args["ps"])  # < qc_mach/ps <= RATIO_MAX
     m = np.where(args["cas_limit"] / prof.a0 < TINY_MACH,
