@@ -180,3 +180,25 @@ def test_help_names_the_options() -> None:
     assert proc.returncode == 0
     assert "--quick" in proc.stdout and "--json" in proc.stdout
     assert "not certified flight software" in " ".join(proc.stdout.split())
+
+
+def test_a_failing_measurement_keeps_every_line_it_gives(monkeypatch: pytest.MonkeyPatch
+                                                         ) -> None:
+    # Every measurement raising: the report still has each line of EXPECTED_GOALS, with
+    # its goal, marked not measured and naming the error (a crash or a missing line
+    # would hide a whole group from the table).
+    def fail(*_args: Any) -> Any:
+        raise RuntimeError("probe failure")
+
+    for name in ("_floor_and_reference", "_fluids_line", "_brentq_line", "_port_lines",
+                 "_callgrind_lines", "_suite_lines", "_chunk_line", "_reduce_lines",
+                 "_scalar_lines"):
+        monkeypatch.setattr(bench, name, fail)
+    report = bench.run_bench(quick=True)
+    assert [ln["key"] for ln in report["lines"]] == list(EXPECTED_GOALS)
+    for ln in report["lines"]:
+        want = EXPECTED_GOALS[ln["key"]]
+        got = None if ln["goal"] is None else (ln["goal"]["op"], ln["goal"]["limit"])
+        assert got == want, ln
+        assert not ln["measured"] and ln["value"] is None, ln
+        assert ln["note"] == "not measured: RuntimeError: probe failure", ln

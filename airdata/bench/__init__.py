@@ -71,13 +71,18 @@ def _machine() -> dict[str, Any]:
             "loadavg_start": list(os.getloadavg())}
 
 
-def _guard(key: str, title: str, unit: str, op: str | None, goal: float | None,
-           fn: Callable[[], Any]) -> list[dict[str, Any]]:
-    """Run one measurement; a failure becomes a "not measured" line, not a crash."""
+#: One line of the report as it is announced: key, title, unit, goal operator, goal.
+_Spec = tuple[str, str, str, str | None, float | None]
+
+
+def _guard(specs: tuple[_Spec, ...], fn: Callable[[], Any]) -> list[dict[str, Any]]:
+    """Run one measurement, which gives the lines ``specs``; a failure makes each of them
+    a "not measured" line, not a crash."""
     try:
         got = fn()
     except Exception as exc:  # noqa: BLE001 - report every failure in the table
-        return [_missing(key, title, unit, op, goal, f"{type(exc).__name__}: {exc}"[:160])]
+        why = f"{type(exc).__name__}: {exc}"[:160]
+        return [_missing(*spec, why) for spec in specs]
     return got if isinstance(got, list) else [got]
 
 
@@ -111,43 +116,39 @@ def run_bench(quick: bool = False, progress: Callable[[str], None] | None = None
         hist.update(h)
         return got
 
-    say("lines 1-2: reference against the exp(log(p)) floor; solver histogram")
-    got = _guard("1", "pressure_altitude / floor", "x floor", "<=", 2.0, lines_1_2)
-    if len(got) == 1:  # failed: line 2 is missing too
-        got.append(_missing("2", "supersonic mach / floor", "x floor", "<=", 6.0,
-                            got[0]["note"][len("not measured: "):]))
-    lines += got
-    say("line 3: atmosphere against fluids")
-    lines += _guard("3", "atmosphere / fluids", "x faster", ">=", 50.0,
-                    lambda: _fluids_line(sz))
-    say("line 4: supersonic inversion against brentq")
-    lines += _guard("4", "inversion / brentq", "x faster", ">=", 250.0,
-                    lambda: _brentq_line(sz))
-    say("line 5: C port against the reference")
-    lines += _guard("5", "C port / reference", "x faster", ">=", 3.0,
-                    lambda: _port_lines(sz))
-    say("line 6: callgrind instruction counts")
-    lines += _guard("6", "C port instructions", "instr/call", "<", 1500.0,
-                    lambda: _callgrind_lines(sz))
-    say("line 7: vector suite build")
-    lines += _guard("7", "vector suite build", "s", "<", 30.0, _suite_lines)
-    say("line 8: chunked chain memory")
-    lines += _guard("8", "chunked chain memory", "x", "<=", FLAT_LIMIT,
-                    lambda: _chunk_line(sz))
-    say("line 9: reduce against pyarrow read + write")
-    got = _guard("9a", "reduce / pyarrow read + write", "x floor", "<=", 2.0,
-                 lambda: _reduce_lines(sz))
-    if len(got) == 1:
-        got.append(_missing("9b", "reduce to Parquet / pyarrow read + write", "x floor",
-                            "<=", 2.0, got[0]["note"][len("not measured: "):]))
-    lines += got
-    say("line 10: scalar calls")
-    got = _guard("10a", "scalar pressure_altitude / pure Python", "x", "<=", 3.0,
-                 lambda: _scalar_lines(sz))
-    if len(got) == 1:
-        got.append(_missing("10b", "scalar atmosphere / fluids", "x faster", ">=", 1.0,
-                            got[0]["note"][len("not measured: "):]))
-    lines += got
+    # Each measurement: its progress message, the lines it gives, and the function.
+    groups: tuple[tuple[str, tuple[_Spec, ...], Callable[[], Any]], ...] = (
+        ("lines 1-2: reference against the exp(log(p)) floor; solver histogram",
+         (("1", "pressure_altitude / floor", "x floor", "<=", 2.0),
+          ("2", "supersonic mach / floor", "x floor", "<=", 6.0)), lines_1_2),
+        ("line 3: atmosphere against fluids",
+         (("3", "atmosphere / fluids", "x faster", ">=", 50.0),), lambda: _fluids_line(sz)),
+        ("line 4: supersonic inversion against brentq",
+         (("4", "inversion / brentq", "x faster", ">=", 250.0),), lambda: _brentq_line(sz)),
+        ("line 5: C port against the reference",
+         (("5a", "C port pressure_altitude / reference", "x faster", None, None),
+          ("5b", "C port chain / reference", "x faster", ">=", 3.0)), lambda: _port_lines(sz)),
+        ("line 6: callgrind instruction counts",
+         (("6a", "C port chain instructions", "instr/call", "<", 1500.0),
+          ("6b", "C port supersonic Mach instructions", "instr/call", None, None)),
+         lambda: _callgrind_lines(sz)),
+        ("line 7: vector suite build",
+         (("7a", "vector suite build: seconds", "s", "<", 30.0),
+          ("7b", "vector suite build: peak memory", "MB", "<", 500.0)), _suite_lines),
+        ("line 8: chunked chain memory",
+         (("8", "chunked chain memory", "x", "<=", FLAT_LIMIT),), lambda: _chunk_line(sz)),
+        ("line 9: reduce against pyarrow read + write",
+         (("9a", "reduce / pyarrow read + write", "x floor", "<=", 2.0),
+          ("9b", "reduce to Parquet / pyarrow read + write", "x floor", "<=", 2.0)),
+         lambda: _reduce_lines(sz)),
+        ("line 10: scalar calls",
+         (("10a", "scalar pressure_altitude / pure Python", "x", "<=", 3.0),
+          ("10b", "scalar atmosphere / fluids", "x faster", ">=", 1.0)),
+         lambda: _scalar_lines(sz)),
+    )
+    for message, specs, fn in groups:
+        say(message)
+        lines += _guard(specs, fn)
     machine["loadavg_end"] = list(os.getloadavg())
     return {"tool": "airdata bench", "version": _version(), "quick": quick, "seed": SEED,
             "sizes": dict(sz), "machine": machine, "lines": lines, "histogram": hist,
