@@ -12,10 +12,10 @@ An engineering and verification aid, not certified flight software.
 from __future__ import annotations
 
 import argparse
-import sys
 from typing import Any
 
 from .. import resources
+from .messages import fail
 from .parsers import add_command
 
 __all__ = ["register_copy", "cmd_copy", "report_copy"]
@@ -31,13 +31,11 @@ def report_copy(command: str, files: list[tuple[Any, str]], dest: str, force: bo
         written = resources.copy_files(files, dest, force)
     except resources.OverwriteError as exc:
         for p in exc.existing:
-            print(f"{command}: error: {p} exists (pass --force to overwrite)", file=sys.stderr)
-        print(f"{command}: error: nothing copied: {len(exc.existing)} file(s) would be "
-              "overwritten", file=sys.stderr)
-        return 1
+            fail(command, f"{p} exists (pass --force to overwrite)")
+        return fail(command, f"nothing copied: {len(exc.existing)} file(s) would be "
+                    "overwritten", 1)
     except OSError as exc:
-        print(f"{command}: error: {exc}", file=sys.stderr)
-        return 1
+        return fail(command, str(exc), 1)
     print(f"copied {what} ({len(written)} files, from the {resources.origin()} at "
           f"{resources.data_root()}) to {dest}")
     return 0
@@ -48,9 +46,8 @@ def cmd_copy(args: argparse.Namespace) -> int:
     try:
         files = resources.port_files()
     except resources.ResourceError as exc:
-        print(f"airdata port copy: error: {exc}", file=sys.stderr)
-        return 2
-    return report_copy("airdata port copy", files, args.dir, args.force,
+        return fail("port copy", str(exc), 2)
+    return report_copy("port copy", files, args.dir, args.force,
                        "the C port: Makefile, include/, src/, runner/, tests/")
 
 

@@ -205,6 +205,12 @@ def _cmd_budget(args: argparse.Namespace) -> int:
     return 0
 
 
+def _add_dT(parser: argparse.ArgumentParser) -> None:
+    """``--dT``: the day's temperature deviation, for both commands."""
+    parser.add_argument("--dT", type=float, default=0.0, metavar="K",
+                        help="temperature deviation from the standard day, K (default 0)")
+
+
 def register(subparsers: Any) -> None:
     """Add the ``limits`` and ``budget`` sub-commands to the ``airdata`` parser."""
 
@@ -214,8 +220,7 @@ def register(subparsers: Any) -> None:
     lim.add_argument("--alt-ft", type=_float_list, default=None, metavar="LIST",
                      help="pressure altitudes in ft, 'a,b,c' or START:STOP:STEP "
                           "(default: every 2000 ft up to the maximum altitude)")
-    lim.add_argument("--dT", type=float, default=0.0, metavar="K",
-                     help="temperature deviation from the standard day, K (default 0)")
+    _add_dT(lim)
     lim.add_argument("--load-factor", type=float, default=1.0, metavar="N",
                      help="load factor of the stall speeds (default 1)")
     lim.add_argument("--profile", choices=sorted(PROFILES), default="icao",
@@ -252,8 +257,7 @@ def register(subparsers: Any) -> None:
                           "(default 0)")
     bud.add_argument("--recovery", type=float, default=1.0, metavar="R",
                      help="TAT probe recovery factor (default 1)")
-    bud.add_argument("--dT", type=float, default=0.0, metavar="K",
-                     help="temperature deviation from the standard day, K (default 0)")
+    _add_dT(bud)
     bud.add_argument("--monte-carlo", type=int, default=0, metavar="N",
                      help="sample the full chain N times per grid point instead of "
                           "linear propagation")

@@ -30,6 +30,7 @@ from ..portcheck.requirements import RequirementsError, load_requirements
 from ..portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load_cases
 from ..portcheck.verdict import PRECISION_LABEL, Report, judge
 from ..vectors.catalogue import CATALOGUE
+from .messages import fail
 from .parsers import add_command, add_compile_options
 
 _CATALOGUE_NAMES = {s.name for s in CATALOGUE}
@@ -221,6 +222,20 @@ def _skip_note(suite: LoadedSuite, env: dict[str, Any]) -> str | None:
             "target that flushes subnormal numbers to zero)")
 
 
+def _write_evidence(command: str, args: argparse.Namespace, reports: list[Report],
+                    env: dict[str, Any]) -> int:
+    """Write the evidence files the options ask for, naming each; 2 if one cannot be
+    written (said on stderr), else 0."""
+    try:
+        for line in write_outputs(args, reports, env):
+            print(line)
+    except ImportError as exc:
+        return fail(command, f"--plot needs matplotlib ({exc}); pip install airdata[plot]", 2)
+    except OSError as exc:
+        return fail(command, f"cannot write a report: {exc}", 2)
+    return 0
+
+
 def cmd_check(args: argparse.Namespace) -> int:
     """Run the check; print the summary; write the evidence files; return the exit status."""
     try:
@@ -233,8 +248,7 @@ def cmd_check(args: argparse.Namespace) -> int:
         declared = _declared(args, list(suite.functions))
         req = load_requirements(args.requirements) if args.requirements else None
     except (SuiteError, PortBuildError, RequirementsError, ValueError) as exc:
-        print(f"airdata port check: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("port check", str(exc), 2)
     functions = [fc for fc in suite.functions.values()
                  if declared is None or fc.name in declared]
     reports: list[Report] = []
@@ -249,25 +263,15 @@ def cmd_check(args: argparse.Namespace) -> int:
                 print("compiler or loader output:\n" + exc.output.rstrip(), file=sys.stderr)
             return 2
         if mismatch:
-            print(f"airdata port check: error: {mismatch}", file=sys.stderr)
-            return 2
+            return fail("port check", mismatch, 2)
         reports.append(judge(suite, raw, precision, req))
         env = environment(spec, precision)
     print(render_summary(reports, spec.label))
     note = _skip_note(suite, env)
     if note:
         print(note)
-    try:
-        for line in write_outputs(args, reports, env):
-            print(line)
-    except ImportError as exc:
-        print(f"airdata port check: error: --plot needs matplotlib ({exc}); "
-              "pip install airdata[plot]", file=sys.stderr)
-        return 2
-    except OSError as exc:
-        print(f"airdata port check: error: cannot write a report: {exc}", file=sys.stderr)
-        return 2
-    return 0 if all(r.ok for r in reports) else 1
+    failed = _write_evidence("port check", args, reports, env)
+    return failed or (0 if all(r.ok for r in reports) else 1)
 
 
 def cmd_verify(args: argparse.Namespace) -> int:
@@ -286,13 +290,11 @@ def cmd_verify(args: argparse.Namespace) -> int:
                                 if c not in kept)
         parsed = read_results(args.results, suite, ignored)
     except (SuiteError, ResultsError) as exc:
-        print(f"airdata port verify: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("port verify", str(exc), 2)
     precision = args.precision or parsed.precision or "double"
     if args.precision and parsed.precision and args.precision != parsed.precision:
-        print(f"airdata port verify: error: {args.results}: the file says precision "
-              f"{parsed.precision}, --precision says {args.precision}", file=sys.stderr)
-        return 2
+        return fail("port verify", f"{args.results}: the file says precision "
+                                   f"{parsed.precision}, --precision says {args.precision}", 2)
     for p in parsed.problems[:50]:
         print(f"{args.results}: {p}")
     if len(parsed.problems) > 50:
@@ -300,8 +302,7 @@ def cmd_verify(args: argparse.Namespace) -> int:
     try:
         req = load_requirements(args.requirements) if args.requirements else None
     except RequirementsError as exc:
-        print(f"airdata port verify: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("port verify", str(exc), 2)
     raw = {fc.name: arrays(fc, parsed)[:2] for fc in suite.functions.values()}
     report = judge(suite, raw, precision, req)
     add_line_numbers(report, parsed)
@@ -316,13 +317,18 @@ def cmd_verify(args: argparse.Namespace) -> int:
     env["results_file"] = {"path": str(args.results),
                            "problems": [str(p) for p in parsed.problems[:1000]],
                            "problem_count": len(parsed.problems)}
-    try:
-        for line in write_outputs(args, [report], env):
-            print(line)
-    except (ImportError, OSError) as exc:
-        print(f"airdata port verify: error: cannot write a report: {exc}", file=sys.stderr)
-        return 2
-    return 0 if report.ok and not parsed.problems else 1
+    failed = _write_evidence("port verify", args, [report], env)
+    return failed or (0 if report.ok and not parsed.problems else 1)
+
+
+def _add_selection(parser: argparse.ArgumentParser, only: str, subnormal: str) -> None:
+    """``--only`` (help ``only``) and ``--skip-subnormal`` (``subnormal`` says what the
+    tag means to the command): which cases a command judges."""
+    parser.add_argument("--only", nargs="+", metavar="FUNC", help=only)
+    parser.add_argument("--skip-subnormal", action="store_true",
+                        help=f"leave out the cases tagged 'subnormal' ({subnormal}), for a "
+                             "target that flushes subnormal numbers to zero; the count is "
+                             "printed")
 
 
 def register(subparsers: Any) -> None:
@@ -342,12 +348,8 @@ def register(subparsers: Any) -> None:
                    help="binary64 (double), binary32 (single) or both; default both, or "
                         "double with --library")
     add_port_options(c)
-    c.add_argument("--only", nargs="+", metavar="FUNC",
-                   help="check only these functions (reference names, e.g. pressure_altitude)")
-    c.add_argument("--skip-subnormal", action="store_true",
-                   help="leave out the cases tagged 'subnormal' (an input or expected output "
-                        "below the normal binary64 range), for a target that flushes "
-                        "subnormal numbers to zero; the count is printed")
+    _add_selection(c, "check only these functions (reference names, e.g. pressure_altitude)",
+                   "an input or expected output below the normal binary64 range")
     c.add_argument("--implements", nargs="+", metavar="FUNC",
                    help="the functions the port implements; the others are reported 'not "
                         "implemented' (not failures)")
@@ -365,12 +367,8 @@ def register(subparsers: Any) -> None:
     v.add_argument("--precision", choices=["double", "single"], default=None,
                    help="precision of the port (default: the file's precision line, else "
                         "double)")
-    v.add_argument("--only", nargs="+", metavar="FUNC",
-                   help="judge only these functions (the results of others are ignored)")
-    v.add_argument("--skip-subnormal", action="store_true",
-                   help="leave out the cases tagged 'subnormal' (their result lines, if "
-                        "any, are ignored), for a target that flushes subnormal numbers "
-                        "to zero; the count is printed")
+    _add_selection(v, "judge only these functions (the results of others are ignored)",
+                   "their result lines, if any, are ignored")
     add_report_options(v)
     v.set_defaults(func=cmd_verify)
     from .port_coverage import add_parser as _add_coverage

@@ -22,6 +22,7 @@ from ..portcheck.coverage import (
     tool_versions,
 )
 from ..portcheck.suite import SuiteError
+from .messages import fail
 from .parsers import add_command, add_compile_options
 
 __all__ = ["add_parser", "cmd_coverage"]
@@ -45,8 +46,7 @@ def cmd_coverage(args: argparse.Namespace) -> int:
                                       list(args.define), args.only or None, tools=tools,
                                       batch=batch)
     except (CoverageError, SuiteError, PortBuildError, ValueError) as exc:
-        print(f"airdata port coverage: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("port coverage", str(exc), 2)
     versions = tool_versions(tools)
     print(render(label, figures, versions=versions))
     final = figures.get("both") or figures[precisions[0]]

@@ -22,10 +22,11 @@ from typing import Any, NoReturn
 from .. import units as u
 from ..profiles import PROFILES
 from ..status import DomainError
+from .messages import fail
 
 __all__ = [
     "Quantity", "parse_quantity", "quantity_type", "difference_type", "add_output_units",
-    "output_units", "add_profile", "allow_negative_values", "fail", "domain_failure",
+    "output_units", "add_profile", "allow_negative_values", "domain_failure",
     "DIMENSION_WORDS", "DECIMALS", "format_value", "render", "si_units", "caution",
     "domain_message", "quiet_broken_pipe",
 ]
@@ -288,12 +289,6 @@ def _takes_value(word: str, value_options: set[str], allow_abbrev: bool) -> bool
         return False
     matches = [o for o in value_options if o.startswith(word)]
     return len(matches) == 1
-
-
-def fail(command: str, message: str, code: int = 1) -> int:
-    """Print ``airdata COMMAND: error: MESSAGE`` on stderr and return ``code``."""
-    print(f"airdata {command}: error: {message}", file=sys.stderr)
-    return code
 
 
 def quiet_broken_pipe() -> int:

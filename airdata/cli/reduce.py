@@ -80,12 +80,12 @@ from ..series.plan import OUTPUTS, ROLES, UsageError
 from ..series.run import PLOT_POINTS, Summary, reduce_series
 from ..series.sinks import RESOLUTION_DECIMALS
 from ..status import DomainError
+from .messages import fail
 from .parsers import add_command
 from .quantities import (
     DECIMALS,
     add_output_units,
     add_profile,
-    fail,
     output_units,
     quantity_type,
     quiet_broken_pipe,

@@ -19,6 +19,7 @@ from .. import units as u
 from ..atmosphere import atmosphere, geometric_altitude, geopotential_altitude
 from ..profiles import Profile, get_profile
 from ..status import DomainError
+from .messages import fail
 from .parsers import add_command
 from .quantities import (
     Quantity,
@@ -26,7 +27,6 @@ from .quantities import (
     add_profile,
     difference_type,
     domain_failure,
-    fail,
     format_value,
     output_units,
     quantity_type,

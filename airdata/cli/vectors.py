@@ -16,6 +16,7 @@ from typing import Any
 from .. import resources
 from ..notice import CAUTION_SUITE
 from ..profiles import PROFILES
+from .messages import fail
 from .parsers import add_command
 
 __all__ = ["register", "cmd_build", "cmd_verify", "cmd_diff", "cmd_path", "cmd_copy",
@@ -47,8 +48,7 @@ def cmd_verify(args: argparse.Namespace) -> int:
     try:
         root = _suite(args.dir, args.profile)
     except (resources.ResourceError, ValueError) as exc:
-        print(f"airdata vectors verify: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("vectors verify", str(exc), 2)
     report = verify_suite(root, recompute=not args.no_recompute, exact=args.exact)
     if args.profile is not None and report.profile not in ("?", args.profile):
         report.problems.append(Problem(".", None, f"the suite has profile {report.profile!r}, "
@@ -89,8 +89,7 @@ def cmd_path(args: argparse.Namespace) -> int:
         rows += [("headers", resources.include_dir()), ("port", resources.src_dir()),
                  ("runner", resources.runner_dir())]
     except (resources.ResourceError, ValueError) as exc:
-        print(f"airdata vectors path: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("vectors path", str(exc), 2)
     print(f"# {resources.origin()}: {resources.data_root()}")
     for name, path in rows:
         print(f"{name:<8} {path}")
@@ -110,9 +109,8 @@ def cmd_copy(args: argparse.Namespace) -> int:
         if not files:
             raise resources.ResourceError(f"{c}: no C headers (*.h) in it")
     except (resources.ResourceError, ValueError) as exc:
-        print(f"airdata vectors copy: error: {exc}", file=sys.stderr)
-        return 2
-    return report_copy("airdata vectors copy", files, args.dir, args.force,
+        return fail("vectors copy", str(exc), 2)
+    return report_copy("vectors copy", files, args.dir, args.force,
                        f"the C headers of the vector suite {root}")
 
 
@@ -140,8 +138,7 @@ def cmd_export(args: argparse.Namespace) -> int:
         text, n = export_cases(args.suite, args.precision, args.only, args.format,
                                args.numbers)
     except (SuiteError, ValueError) as exc:
-        print(f"airdata vectors export: error: {exc}", file=sys.stderr)
-        return 2
+        return fail("vectors export", str(exc), 2)
     Path(args.out).write_text(text, encoding="ascii", newline="\n")
     print(f"exported {n} cases ({args.precision}, {args.format}) to {args.out}")
     return 0
