@@ -15,12 +15,11 @@ from typing import Any
 import numpy as np
 
 from ..notice import CAUTION
-from ..profiles import PROFILES
 from ..status import DomainError
 from ..units import from_si, to_si
 from .accuracy import SensorTerm, parse_accuracy
 from .parsers import add_command
-from .quantities import quantity_type
+from .quantities import add_profile, quantity_type
 
 __all__ = ["register"]
 
@@ -205,6 +204,15 @@ def _cmd_budget(args: argparse.Namespace) -> int:
     return 0
 
 
+def _add_outputs(parser: argparse.ArgumentParser, plot: str) -> None:
+    """``--profile``, ``--plot`` (which draws ``plot``) and ``--json``, for both commands."""
+    add_profile(parser, "constants profile (default: icao)")
+    parser.add_argument("--plot", metavar="FILE", default=None,
+                        help=f"write {plot} (.png, .svg, .pdf; needs matplotlib)")
+    parser.add_argument("--json", action="store_true",
+                        help="machine-readable output (SI units)")
+
+
 def _add_dT(parser: argparse.ArgumentParser) -> None:
     """``--dT``: the day's temperature deviation, for both commands."""
     parser.add_argument("--dT", type=float, default=0.0, metavar="K",
@@ -223,11 +231,7 @@ def register(subparsers: Any) -> None:
     _add_dT(lim)
     lim.add_argument("--load-factor", type=float, default=1.0, metavar="N",
                      help="load factor of the stall speeds (default 1)")
-    lim.add_argument("--profile", choices=sorted(PROFILES), default="icao",
-                     help="constants profile (default: icao)")
-    lim.add_argument("--plot", metavar="FILE", default=None,
-                     help="write a chart of the envelope (.png, .svg, .pdf; needs matplotlib)")
-    lim.add_argument("--json", action="store_true", help="machine-readable output (SI units)")
+    _add_outputs(lim, "a chart of the envelope")
     lim.set_defaults(func=_cmd_limits)
 
     bud = add_command(subparsers, "budget")
@@ -267,9 +271,5 @@ def register(subparsers: Any) -> None:
     bud.add_argument("--outputs", default=None, metavar="LIST",
                      help="comma-separated outputs (default: pressure_altitude,cas,mach,"
                           "tas,sat,eas)")
-    bud.add_argument("--profile", choices=sorted(PROFILES), default="icao",
-                     help="constants profile (default: icao)")
-    bud.add_argument("--plot", metavar="FILE", default=None,
-                     help="write error-budget maps (.png, .svg, .pdf; needs matplotlib)")
-    bud.add_argument("--json", action="store_true", help="machine-readable output (SI units)")
+    _add_outputs(bud, "error-budget maps")
     bud.set_defaults(func=_cmd_budget)

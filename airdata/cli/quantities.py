@@ -186,10 +186,11 @@ def output_units(args: argparse.Namespace) -> dict[str, str]:
     return base
 
 
-def add_profile(parser: argparse.ArgumentParser) -> None:
-    """Add ``--profile``."""
-    parser.add_argument("--profile", choices=sorted(PROFILES), default="icao",
-                        help="constants profile of the standard atmosphere (default: icao)")
+def add_profile(parser: argparse.ArgumentParser,
+                help: str = "constants profile of the standard atmosphere (default: icao)"
+                ) -> None:
+    """Add ``--profile`` (icao by default), with the help text ``help``."""
+    parser.add_argument("--profile", choices=sorted(PROFILES), default="icao", help=help)
 
 
 #: A value that starts like a negative number (``-20degC``, ``-.5``, ``-1e3ft``): no option

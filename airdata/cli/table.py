@@ -19,18 +19,9 @@ from .. import units as u
 from ..atmosphere import atmosphere, geometric_altitude, geopotential_altitude
 from ..profiles import Profile, get_profile
 from ..status import DomainError
+from . import quantities as qty
 from .messages import fail
 from .parsers import add_command
-from .quantities import (
-    Quantity,
-    add_output_units,
-    add_profile,
-    difference_type,
-    domain_failure,
-    format_value,
-    output_units,
-    quantity_type,
-)
 
 __all__ = ["register", "run", "MAX_ROWS"]
 
@@ -57,23 +48,23 @@ Exit status: 0 done, 1 a range wholly outside the model, 2 usage error.
 def register(subparsers: argparse._SubParsersAction) -> None:
     """Add the ``table`` sub-command."""
     p = add_command(subparsers, COMMAND, description=DESCRIPTION, desk=True)
-    p.add_argument("--from", dest="start", type=quantity_type("length"), metavar="H",
-                   default=Quantity(0.0, 0.0, "ft"), help="first altitude (default 0ft)")
-    p.add_argument("--to", dest="stop", type=quantity_type("length"), metavar="H",
-                   default=Quantity(50000 * u.FT, 50000.0, "ft"),
+    p.add_argument("--from", dest="start", type=qty.quantity_type("length"), metavar="H",
+                   default=qty.Quantity(0.0, 0.0, "ft"), help="first altitude (default 0ft)")
+    p.add_argument("--to", dest="stop", type=qty.quantity_type("length"), metavar="H",
+                   default=qty.Quantity(50000 * u.FT, 50000.0, "ft"),
                    help="last altitude (default 50000ft)")
-    p.add_argument("--step", type=quantity_type("length"), metavar="H",
-                   default=Quantity(5000 * u.FT, 5000.0, "ft"), help="step (default 5000ft)")
+    p.add_argument("--step", type=qty.quantity_type("length"), metavar="H",
+                   default=qty.Quantity(5000 * u.FT, 5000.0, "ft"), help="step (default 5000ft)")
     p.add_argument("--geometric", action="store_true",
                    help="the range is in geometric altitude (default: geopotential)")
-    p.add_argument("--isa-dev", type=difference_type, metavar="DT",
-                   default=Quantity(0.0, 0.0, "K"),
+    p.add_argument("--isa-dev", type=qty.difference_type, metavar="DT",
+                   default=qty.Quantity(0.0, 0.0, "K"),
                    help="temperature deviation of an off-standard day, e.g. +15K")
-    add_profile(p)
+    qty.add_profile(p)
     fmt = p.add_mutually_exclusive_group()
     fmt.add_argument("--csv", action="store_true", help="CSV, every column named with its unit")
     fmt.add_argument("--json", action="store_true", help="machine-readable output")
-    add_output_units(p)
+    qty.add_output_units(p)
     p.set_defaults(func=run, _parser=p)
 
 
@@ -90,7 +81,7 @@ def run(args: argparse.Namespace) -> int:
         parser.error(f"{count} rows: at most {MAX_ROWS}; give a larger --step")
     prof = get_profile(args.profile)
     grid = start + step * np.arange(count, dtype=np.float64)
-    ou = output_units(args)
+    ou = qty.output_units(args)
     with np.errstate(invalid="ignore"):
         if args.geometric:
             z = grid
@@ -115,7 +106,7 @@ def run(args: argparse.Namespace) -> int:
     try:
         atm = atmosphere(h, args.isa_dev.si, profile=prof)
     except DomainError as exc:
-        return domain_failure(COMMAND, exc, {"dT": args.isa_dev})
+        return qty.domain_failure(COMMAND, exc, {"dT": args.isa_dev})
     temp = np.asarray(atm.temperature)
     pres = np.asarray(atm.pressure)
     rho = np.asarray(atm.density)
@@ -191,4 +182,4 @@ def _cell(value: float, unit: str) -> str:
         return f"{value:.5g}"
     if unit == "Pa" or unit == "1":
         return f"{value:.5g}" if unit == "1" else f"{value:.1f}"
-    return format_value(value, unit).replace(",", "")
+    return qty.format_value(value, unit).replace(",", "")
