@@ -4,7 +4,7 @@ temperature in; every air-data output out.  CHN-1 of docs/equations.md.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, fields
 
 import numpy as np
 from numpy.typing import NDArray
@@ -70,6 +70,12 @@ class AirData:
     dynamic_pressure: FloatOrArray
     status: int | NDArray[np.int8]
     profile: str
+
+
+#: The outputs of :func:`air_data`, in the order of the fields of :class:`AirData` (and of
+#: the C record ``ad_air_data_t``): every field but ``status`` and ``profile``.
+AIR_DATA_OUTPUTS: tuple[str, ...] = tuple(f.name for f in fields(AirData)
+                                          if f.name not in ("status", "profile"))
 
 
 def check_noise_band(noise_band: float) -> None:

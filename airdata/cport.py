@@ -47,17 +47,6 @@ from .chain import AirData
 from .profiles import ICAO, Profile, get_profile
 from .status import DomainError, Status
 
-__all__ = [
-    "PRECISIONS", "atmosphere", "geopotential_altitude", "geometric_altitude",
-    "pressure_altitude", "pressure_at_altitude", "baro_corrected_altitude",
-    "altimeter_setting", "density_altitude", "impact_pressure_from_mach",
-    "mach_from_impact_pressure", "impact_pressure_from_cas", "cas_from_impact_pressure",
-    "cas_from_mach", "mach_from_cas", "eas_from_mach", "mach_from_eas", "tas_from_mach",
-    "mach_from_tas", "dynamic_pressure", "sat_from_tat", "tat_from_sat", "air_data",
-    "stall_eas", "stall_mach", "stall_cas", "stall_tas", "crossover_altitude",
-    "max_operating_cas", "max_operating_mach", "ceiling_margin",
-]
-
 #: Precision name -> (extension module of the ICAO build, numpy dtype of ``ad_real``).
 PRECISIONS: dict[str, tuple[str, type[np.floating[Any]]]] = {
     "double": ("airdata._cport64", np.float64),
@@ -273,38 +262,21 @@ def _port_function(name: str) -> Callable[..., FloatOrArray]:
     return fn
 
 
-geopotential_altitude = _port_function("geopotential_altitude")
-geometric_altitude = _port_function("geometric_altitude")
-pressure_altitude = _port_function("pressure_altitude")
-pressure_at_altitude = _port_function("pressure_at_altitude")
-baro_corrected_altitude = _port_function("baro_corrected_altitude")
-altimeter_setting = _port_function("altimeter_setting")
-density_altitude = _port_function("density_altitude")
-impact_pressure_from_mach = _port_function("impact_pressure_from_mach")
-mach_from_impact_pressure = _port_function("mach_from_impact_pressure")
-impact_pressure_from_cas = _port_function("impact_pressure_from_cas")
-cas_from_impact_pressure = _port_function("cas_from_impact_pressure")
-cas_from_mach = _port_function("cas_from_mach")
-mach_from_cas = _port_function("mach_from_cas")
-eas_from_mach = _port_function("eas_from_mach")
-mach_from_eas = _port_function("mach_from_eas")
-tas_from_mach = _port_function("tas_from_mach")
-mach_from_tas = _port_function("mach_from_tas")
-dynamic_pressure = _port_function("dynamic_pressure")
-sat_from_tat = _port_function("sat_from_tat")
-tat_from_sat = _port_function("tat_from_sat")
-stall_eas = _port_function("stall_eas")
-stall_mach = _port_function("stall_mach")
-stall_cas = _port_function("stall_cas")
-stall_tas = _port_function("stall_tas")
-crossover_altitude = _port_function("crossover_altitude")
-max_operating_cas = _port_function("max_operating_cas")
-max_operating_mach = _port_function("max_operating_mach")
-ceiling_margin = _port_function("ceiling_margin")
+def _install_port_functions() -> list[str]:
+    """Make the port of every one-output function of the table a name of this module
+    (the two record functions, :func:`atmosphere` and :func:`air_data`, are written out
+    here); their names, in the table's order."""
+    from .vectors.catalogue import CATALOGUE
+
+    names = [spec.name for spec in CATALOGUE if len(spec.outputs) == 1]
+    for name in names:
+        globals()[name] = _port_function(name)
+    return names
 
 
-_AIR_FIELDS = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", "cas", "eas",
-               "tas", "sat", "density", "density_altitude", "dynamic_pressure")
+_ONE_OUTPUT = _install_port_functions()
+
+
 
 
 @fill_doc
@@ -340,7 +312,7 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
     if setting is not None:
         named["setting"] = (setting, "setting")
     b = _Batch(precision, named, prof)
-    out = np.empty((b.n, len(_AIR_FIELDS)), dtype=b.dtype)
+    out = np.empty((b.n, len(_chain.AIR_DATA_OUTPUTS)), dtype=b.dtype)
     if b.n:
         ins = b.inputs()
         use = 1 if setting is not None else 0
@@ -350,9 +322,14 @@ def air_data(ps: ArrayLike, pt: ArrayLike, tat: ArrayLike, recovery: ArrayLike =
             b.ptr(b.status, "unsigned char[]"), b.n))
         if bad and strict:
             b.raise_first(lambda *a: _chain.air_data(*a, noise_band=noise_band, profile=prof))
-    cols = {f: b.finish(np.ascontiguousarray(out[:, j])) for j, f in enumerate(_AIR_FIELDS)}
+    cols = {f: b.finish(np.ascontiguousarray(out[:, j]))
+            for j, f in enumerate(_chain.AIR_DATA_OUTPUTS)}
     if setting is None:
         cols["baro_altitude"] = None
     status = b.status.astype(np.int8)
     return AirData(**cols, status=int(status[0]) if b.scalar else status.reshape(b.shape),
                    profile=prof.name)
+
+
+#: The two record functions and every one-output function of the table.
+__all__ = ["PRECISIONS", "atmosphere", "air_data", *_ONE_OUTPUT]
