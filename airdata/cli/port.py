@@ -22,10 +22,9 @@ from ..portcheck.evidence import (
     render_summary,
     report_json,
     write_failures,
-    write_html,
     write_junit,
-    write_plots,
 )
+from ..portcheck.page import write_html, write_plots
 from ..portcheck.requirements import RequirementsError, load_requirements
 from ..portcheck.suite import FunctionCases, LoadedSuite, SuiteError, load_cases
 from ..portcheck.verdict import PRECISION_LABEL, Report, judge

@@ -73,10 +73,11 @@ import sys
 from typing import Any
 
 from ..chain import NOISE_BAND
-from ..series.compare import Comparison, RecordedComparison
+from ..series.compare import Comparison
 from ..series.csvio import HeaderError, delimiter_option, file_format, pyarrow_available
 from ..series.options import ReduceOptions
 from ..series.plan import OUTPUTS, ROLES, UsageError
+from ..series.recorded import RecordedComparison
 from ..series.run import PLOT_POINTS, Summary, reduce_series
 from ..series.sinks import RESOLUTION_DECIMALS
 from ..status import DomainError

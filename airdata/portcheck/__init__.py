@@ -28,9 +28,11 @@ says), and optionally against the user's accuracy requirements.  Modules:
   over an envelope (TOML, docs/requirements.md);
 - :mod:`~airdata.portcheck.verdict`: :func:`~airdata.portcheck.verdict.judge`, both
   levels per function with engineering-unit errors, margins and bands, as a
-  :class:`~airdata.portcheck.verdict.Report`;
+  :class:`~airdata.portcheck.verdict.Report`, with the bands and engineering units of
+  :mod:`~airdata.portcheck.bands`;
 - :mod:`~airdata.portcheck.evidence`: the text summary, JSON report (its schema is
-  ``report.schema.json``), JUnit XML, CSV of failures, HTML page and plots;
+  ``report.schema.json``), JUnit XML and CSV of failures;
+- :mod:`~airdata.portcheck.page`: the self-contained HTML page and the plots;
 - :mod:`~airdata.portcheck.coverage`: MC/DC, branch, line and region coverage of a
   port by the suite (clang 19, ``airdata port coverage``);
 - the ``airdata port`` command line (``check``, ``verify``, ``copy``, ``coverage``) is

@@ -1,5 +1,5 @@
 """Verification evidence of a port check: text, JSON (with a schema), JUnit XML, CSV,
-a self-contained HTML page and error-over-envelope plots.
+(the HTML page and the plots: :mod:`airdata.portcheck.page`).
 
 Everything taken from outside (file names, case ids, compiler output, requirement
 texts) is escaped in HTML and XML and length-bounded.  The JSON report follows
@@ -10,12 +10,10 @@ An engineering and verification aid, not certified flight software.
 
 from __future__ import annotations
 
-import base64
 import csv
 import datetime as _dt
 import hashlib
 import html
-import io
 import json
 import math
 import os
@@ -35,20 +33,20 @@ from ..notice import CAUTION
 from .verdict import LEVEL_REFERENCE, LEVEL_REQUIREMENTS, PRECISION_LABEL, FunctionVerdict, Report
 
 __all__ = ["CAUTION", "environment", "report_json", "report_schema",
-           "render_summary", "write_junit", "write_failures", "write_html", "write_plots",
+           "render_summary", "write_junit", "write_failures",
            "sha256_file", "equation_table", "REPORT_FORMAT"]
 
 REPORT_FORMAT = "airdata-port-report-1"
 _MAX = 300
 
 
-def _bounded(text: object, n: int = _MAX) -> str:
+def bounded(text: object, n: int = _MAX) -> str:
     s = str(text)
     return s if len(s) <= n else s[:n - 3] + "..."
 
 
-def _esc(text: object, n: int = _MAX) -> str:
-    return html.escape(_bounded(text, n), quote=True)
+def esc(text: object, n: int = _MAX) -> str:
+    return html.escape(bounded(text, n), quote=True)
 
 
 #: What a check of outputs and statuses does not cover: the rest of the interface contract
@@ -80,7 +78,7 @@ def _compiler_version(cc: str) -> str:
                              check=False).stdout
     except (OSError, subprocess.SubprocessError):
         return "unknown"
-    return _bounded(out.splitlines()[0] if out else "unknown", 200)
+    return bounded(out.splitlines()[0] if out else "unknown", 200)
 
 
 def cffi_compiler() -> str:
@@ -105,7 +103,7 @@ def environment(spec: Any = None, precision: str | None = None) -> dict[str, Any
         "airdata_version": __version__,
         "python": platform.python_version(),
         "host": f"{platform.system()} {platform.machine()}",
-        "compiler": {"command": _bounded(cc, 200), "version": _compiler_version(cc),
+        "compiler": {"command": bounded(cc, 200), "version": _compiler_version(cc),
                      "flags": []},
         "port": {"label": "", "files": []},
     }
@@ -119,7 +117,7 @@ def environment(spec: Any = None, precision: str | None = None) -> dict[str, Any
         files = [("source", p) for p in spec.sources]
         if spec.library is not None:
             files.append(("library", spec.library))
-        env["port"] = {"label": _bounded(spec.label, 500),
+        env["port"] = {"label": bounded(spec.label, 500),
                        "files": [{"kind": k, "path": str(p), "sha256": sha256_file(p)}
                                  for k, p in files if Path(p).is_file()]}
     return env
@@ -155,7 +153,7 @@ def report_schema() -> dict[str, Any]:
     return json.loads(text)
 
 
-def _manifest_sha(report: Report) -> str:
+def manifest_sha(report: Report) -> str:
     p = Path(report.suite.root) / "manifest.json"
     return sha256_file(p) if p.is_file() else ""
 
@@ -184,7 +182,7 @@ def report_json(reports: Sequence[Report], env: dict[str, Any],
         "environment": env,
         "suite": {"path": str(first.suite.root), "suite_version": first.suite.suite_version,
                   "profile": first.suite.profile, "k": first.suite.k,
-                  "manifest_sha256": _manifest_sha(first)},
+                  "manifest_sha256": manifest_sha(first)},
         "requirements": None if req is None else {
             "path": req.path, "sha256": req.sha256, "title": req.title},
         "equations": {e: eqs.get(e, {}) for r in reports for f in r.functions
@@ -199,7 +197,7 @@ def report_json(reports: Sequence[Report], env: dict[str, Any],
     }
 
 
-def _fmt(v: float, digits: int = 3) -> str:
+def fmt(v: float, digits: int = 3) -> str:
     if isinstance(v, str):
         return v
     if math.isinf(v):
@@ -209,7 +207,7 @@ def _fmt(v: float, digits: int = 3) -> str:
     return f"{v:.{digits}g}"
 
 
-def _where(w: dict[str, str]) -> str:
+def where(w: dict[str, str]) -> str:
     return ", ".join(f"{k} = {v}" for k, v in w.items())
 
 
@@ -218,7 +216,7 @@ def _function_lines(f: FunctionVerdict, level: str) -> list[str]:
         return [f"{f.function:<26} not implemented (declared by the port; not judged)"]
     ref = f.reference
     ref_txt = f"reference-equivalent {f.reference_verdict.upper()}" + (
-        f" (worst {_fmt(ref.worst)} of the bound)" if ref else "")
+        f" (worst {fmt(ref.worst)} of the bound)" if ref else "")
     if level == LEVEL_REQUIREMENTS:
         head = (f"{f.function:<26} requirements {f.verdict.upper():<14} in envelope "
                 f"{f.in_envelope}, outside {f.outside_envelope}, failed {f.failed} "
@@ -234,22 +232,22 @@ def _function_lines(f: FunctionVerdict, level: str) -> list[str]:
                 lines.append(f"    {o.output:<20} no requirement")
             continue
         unit = o.unit if o.unit != "1" else ""
-        txt = f"    {o.output:<20} worst {_fmt(o.worst_error, 4)} {unit}".rstrip()
+        txt = f"    {o.output:<20} worst {fmt(o.worst_error, 4)} {unit}".rstrip()
         if o.requirement is not None and o.req_unit not in (None, o.unit):
-            txt += f" ({_fmt(o.worst_error_req or 0.0, 4)} {o.req_unit})"
-        txt += f" at {_where(o.worst_where)}"
+            txt += f" ({fmt(o.worst_error_req or 0.0, 4)} {o.req_unit})"
+        txt += f" at {where(o.worst_where)}"
         if o.requirement is not None:
-            txt += (f"; allowed {o.requirement}; margin {_fmt(o.margin)} at "
-                    f"{_where(o.margin_where)}")
-        txt += f"; bound ratio {_fmt(o.bound_ratio)}"
+            txt += (f"; allowed {o.requirement}; margin {fmt(o.margin)} at "
+                    f"{where(o.margin_where)}")
+        txt += f"; bound ratio {fmt(o.bound_ratio)}"
         if o.failed:
             txt += f"  <- {o.failed} FAIL"
         lines.append(txt)
         for b in o.bands:
             if b.failed and b.axis != "tag":
                 lines.append(f"        band {b.axis} {b.label}: {b.failed} of {b.judged} "
-                             f"fail, worst {_fmt(b.worst_error, 4)} {unit}, margin "
-                             f"{_fmt(b.margin)}")
+                             f"fail, worst {fmt(b.worst_error, 4)} {unit}, margin "
+                             f"{fmt(b.margin)}")
     return lines
 
 
@@ -259,9 +257,9 @@ def render_summary(reports: Sequence[Report], label: str, max_listed: int = 5) -
     first = reports[0]
     req = first.requirements
     lines = [f"airdata port check - suite {first.suite.suite_version} (profile "
-             f"{first.suite.profile}), port: {_bounded(label, 200)}",
+             f"{first.suite.profile}), port: {bounded(label, 200)}",
              f"level applied: {first.level}"
-             + (f" ({_bounded(req.path, 200)}, SHA-256 {req.sha256[:16]}...)" if req else
+             + (f" ({bounded(req.path, 200)}, SHA-256 {req.sha256[:16]}...)" if req else
                 f" (|got - expected| <= {first.suite.k:g} * eps * scale); requirements "
                 "level not applied (no --requirements)"), ""]
     failing = []
@@ -285,7 +283,7 @@ def render_summary(reports: Sequence[Report], label: str, max_listed: int = 5) -
                          f"case(s), first {min(max_listed, len(f.failures))}:")
             for c in f.failures[:max_listed]:
                 lines.append(f"  case {c.case_id}: {'; '.join(c.reasons)}")
-                lines.append(f"    inputs: {_where(c.where)}")
+                lines.append(f"    inputs: {where(c.where)}")
             lines.append("")
     n_impl = sum(f.implemented for r in reports for f in r.functions)
     n_ni = sum(not f.implemented for r in reports for f in r.functions)
@@ -330,11 +328,11 @@ def write_junit(reports: Sequence[Report], path: str | Path) -> None:
                         counts["skipped"] += 1
                         continue
                     bad = o.failed
-                    msg = (f"{bad} of {o.judged} fail; worst {_fmt(o.worst_error, 4)} {o.unit}"
-                           f" at {_where(o.worst_where)}; margin {_fmt(o.margin)}"
+                    msg = (f"{bad} of {o.judged} fail; worst {fmt(o.worst_error, 4)} {o.unit}"
+                           f" at {where(o.worst_where)}; margin {fmt(o.margin)}"
                            + (f" of {o.requirement}" if o.requirement else " of the bound"))
                 if bad:
-                    fl = ET.SubElement(tc, "failure", message=_bounded(msg, 500),
+                    fl = ET.SubElement(tc, "failure", message=bounded(msg, 500),
                                        type=r.level)
                     fl.text = "\n".join("; ".join(c.reasons) for c in f.failures[:20])
                     counts["failures"] += 1
@@ -357,183 +355,9 @@ def write_failures(reports: Sequence[Report], path: str | Path) -> int:
                 for c in f.failures:
                     for o in c.outputs:
                         w.writerow([PRECISION_LABEL[r.precision], r.level, f.function,
-                                    c.case_id, _where(c.where), c.status, c.expected_status,
+                                    c.case_id, where(c.where), c.status, c.expected_status,
                                     o["output"], o["got"]["decimal"], o["got"]["hex"],
                                     o["expected"]["decimal"], o["expected"]["hex"], o["error"],
                                     o["unit"], o["ratio"], "; ".join(c.reasons)])
                         rows += 1
     return rows
-
-
-def _plot_pngs(r: Report) -> list[tuple[str, str, bytes]]:
-    """(function, output, PNG bytes) per judged output: error over the first band axis."""
-    try:
-        import matplotlib
-        matplotlib.use("Agg")
-        import matplotlib.pyplot as plt
-    except ImportError:
-        return []
-    out = []
-    for f in r.functions:
-        for o in f.outputs:
-            s = o.series
-            if not o.judged or not s.get("axes"):
-                continue
-            name, xs, xunit = s["axes"][0]
-            fig, ax = plt.subplots(figsize=(6.4, 3.2), dpi=80)
-            ax.plot(xs, s["error"], ".", ms=3, label=f"|error| ({o.unit})")
-            if s["allowed"] is not None:
-                order = sorted(range(len(xs)), key=lambda i: xs[i])
-                ax.plot([xs[i] for i in order], [s["allowed"][i] for i in order], "-",
-                        color="red", label=f"allowed ({o.requirement})")
-            ax.set_xlabel(f"{name} {xunit}".strip())
-            ax.set_ylabel(f"{o.output} error ({o.unit})")
-            ax.set_title(f"{f.function}.{o.output} [{PRECISION_LABEL[r.precision]}] "
-                         f"{f.verdict}", fontsize=9)
-            ax.legend(fontsize=7)
-            ax.grid(alpha=0.3)
-            fig.tight_layout()
-            buf = io.BytesIO()
-            fig.savefig(buf, format="png")
-            plt.close(fig)
-            out.append((f.function, o.output, buf.getvalue()))
-    return out
-
-
-def write_plots(reports: Sequence[Report], directory: str | Path) -> list[Path]:
-    """Error-over-envelope PNGs per function and output; raises ImportError without
-    matplotlib."""
-    import matplotlib  # noqa: F401  (the plot extra)
-
-    d = Path(directory)
-    d.mkdir(parents=True, exist_ok=True)
-    paths = []
-    for r in reports:
-        for fn, out, png in _plot_pngs(r):
-            p = d / f"{fn}-{out}-{PRECISION_LABEL[r.precision]}.png"
-            p.write_bytes(png)
-            paths.append(p)
-    return paths
-
-
-_CSS = ("body{font-family:sans-serif;margin:1.5em;max-width:72em}table{border-collapse:"
-        "collapse;margin:.5em 0}td,th{border:1px solid #999;padding:2px 6px;font-size:90%}"
-        ".pass{background:#d8f0d8}.fail{background:#f6d0d0}.na{background:#eee}"
-        ".caution{border:2px solid #a60;padding:.6em;background:#fff4e0}")
-
-
-def _cls(v: str) -> str:
-    return {"pass": "pass", "fail": "fail"}.get(v, "na")
-
-
-def write_html(reports: Sequence[Report], env: dict[str, Any], path: str | Path) -> None:
-    """One self-contained HTML page: caution, summary, verdicts and margins, bands,
-    environment, traceability; plots embedded as data: URIs (when matplotlib is there)."""
-    first = reports[0]
-    req = first.requirements
-    eqs = equation_table()
-    h: list[str] = ["<!DOCTYPE html>", "<html lang=\"en\"><head><meta charset=\"utf-8\">",
-                    "<title>airdata port check evidence</title>", f"<style>{_CSS}</style>",
-                    "</head><body>", "<h1>airdata port check: verification evidence</h1>",
-                    f"<p class=\"caution\"><b>{_esc(CAUTION, 1000)}</b></p>"]
-    verdict = "PASS" if all(r.ok for r in reports) else "FAIL"
-    h.append("<h2>Summary</h2><table>")
-    rows = [("verdict", verdict), ("level applied", first.level),
-            ("reference-equivalent level",
-             f"|got - expected| <= {first.suite.k:g} * eps * scale, status exact"),
-            ("requirements level", f"{req.path} (SHA-256 {req.sha256})" if req
-             else "not applied (no requirements file)"),
-            ("requirements title", req.title if req else "-"),
-            ("port", env["port"]["label"]),
-            ("suite", f"{first.suite.suite_version} ({first.suite.profile}), manifest "
-                      f"SHA-256 {_manifest_sha(first)}"),
-            ("date (UTC)", env["date_utc"]), ("airdata", env["airdata_version"]),
-            ("not checked here", "; ".join(CHECKS_NOT_RUN) + " (the vector runner checks "
-                                 "them)")]
-    for k, v in rows:
-        c = f" class=\"{_cls(v.lower())}\"" if k == "verdict" else ""
-        h.append(f"<tr><th>{_esc(k)}</th><td{c}>{_esc(v)}</td></tr>")
-    h.append("</table>")
-    for r in reports:
-        pl = PRECISION_LABEL[r.precision]
-        h.append(f"<h2>Verdicts and margins ({pl})</h2><table><tr><th>function</th>"
-                 "<th>output</th><th>verdict</th><th>reference-equivalent</th>"
-                 "<th>in / outside envelope</th><th>failed</th><th>allowed</th>"
-                 "<th>worst error</th><th>margin</th><th>bound ratio</th><th>where</th></tr>")
-        for f in r.functions:
-            if not f.implemented:
-                h.append(f"<tr><td>{_esc(f.function)}</td><td>-</td><td class=\"na\">not "
-                         "implemented</td><td colspan=\"8\"></td></tr>")
-                continue
-            for o in f.outputs:
-                h.append(
-                    f"<tr><td>{_esc(f.function)}</td><td>{_esc(o.output)}</td>"
-                    f"<td class=\"{_cls(f.verdict)}\">{_esc(f.verdict)}</td>"
-                    f"<td class=\"{_cls(f.reference_verdict)}\">"
-                    f"{_esc(f.reference_verdict)}</td>"
-                    f"<td>{f.in_envelope} / {f.outside_envelope}</td><td>{o.failed}</td>"
-                    f"<td>{_esc(o.requirement or 'bound')}</td>"
-                    f"<td>{_esc(_fmt(o.worst_error, 4))} {_esc(o.unit)}</td>"
-                    f"<td>{_esc(_fmt(o.margin))}</td><td>{_esc(_fmt(o.bound_ratio))}</td>"
-                    f"<td>{_esc(_where(o.margin_where if o.requirement else o.worst_where))}"
-                    "</td></tr>")
-        h.append("</table>")
-        h.append(f"<h2>Breakdown by band ({pl})</h2><table><tr><th>function.output</th>"
-                 "<th>axis</th><th>band</th><th>judged</th><th>failed</th><th>worst error</th>"
-                 "<th>margin</th></tr>")
-        for f in r.functions:
-            for o in f.outputs:
-                for b in o.bands:
-                    cls = "fail" if b.failed else "pass"
-                    h.append(f"<tr><td>{_esc(f.function)}.{_esc(o.output)}</td>"
-                             f"<td>{_esc(b.axis)}</td><td>{_esc(b.label)}</td>"
-                             f"<td>{b.judged}</td><td class=\"{cls}\">{b.failed}</td>"
-                             f"<td>{_esc(_fmt(b.worst_error, 4))} {_esc(o.unit)}</td>"
-                             f"<td>{_esc(_fmt(b.margin))}</td></tr>")
-        h.append("</table>")
-        pngs = _plot_pngs(r)
-        if pngs:
-            h.append(f"<h2>Error over the envelope ({pl})</h2>")
-            for fn, out, png in pngs:
-                uri = "data:image/png;base64," + base64.b64encode(png).decode("ascii")
-                h.append(f"<p><img alt=\"{_esc(fn)}.{_esc(out)} error\" src=\"{uri}\"></p>")
-        else:
-            h.append("<p>Plots: not drawn (matplotlib is not installed; pip install "
-                     "airdata[plot]).</p>")
-        fails = [(f, c) for f in r.functions for c in f.failures]
-        h.append(f"<h2>Failing cases ({pl}): {len(fails)}</h2>")
-        if fails:
-            h.append("<table><tr><th>function</th><th>case</th><th>inputs</th>"
-                     "<th>reasons (decimal and hex)</th></tr>")
-            for f, c in fails[:200]:
-                h.append(f"<tr><td>{_esc(f.function)}</td><td>{_esc(c.case_id, 40)}</td>"
-                         f"<td>{_esc(_where(c.where))}</td>"
-                         f"<td>{_esc('; '.join(c.reasons), 600)}</td></tr>")
-            h.append("</table>")
-            if len(fails) > 200:
-                h.append(f"<p>{len(fails) - 200} more in the JSON report and --failures "
-                         "CSV.</p>")
-    h.append("<h2>Traceability</h2><table><tr><th>equation</th><th>published source</th>"
-             "<th>Python function</th><th>C function</th><th>vector file</th>"
-             "<th>verdict</th></tr>")
-    for r in reports:
-        for f in r.functions:
-            for e in f.equations:
-                row = eqs.get(e, {})
-                h.append(f"<tr><td>{_esc(e)}</td><td>{_esc(row.get('source', '-'))}</td>"
-                         f"<td>airdata.{_esc(f.function)}</td><td>{_esc(f.c_function)}</td>"
-                         f"<td>functions/{_esc(f.function)}.json</td>"
-                         f"<td class=\"{_cls(f.verdict)}\">{_esc(f.verdict)} "
-                         f"({PRECISION_LABEL[r.precision]})</td></tr>")
-    h.append("</table><h2>Environment</h2><table>")
-    comp = env["compiler"]
-    for k, v in (("host", env["host"]), ("python", env["python"]),
-                 ("compiler", comp["command"]), ("compiler version", comp["version"]),
-                 ("flags", " ".join(comp["flags"]))):
-        h.append(f"<tr><th>{_esc(k)}</th><td>{_esc(v, 600)}</td></tr>")
-    for fobj in env["port"]["files"]:
-        h.append(f"<tr><th>{_esc(fobj['kind'])}</th><td>{_esc(fobj['path'])}<br>SHA-256 "
-                 f"{_esc(fobj['sha256'])}</td></tr>")
-    h.append("</table>")
-    h.append(f"<p>{_esc(CAUTION, 1000)}</p></body></html>")
-    Path(path).write_text("\n".join(h) + "\n", encoding="utf-8")

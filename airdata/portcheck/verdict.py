@@ -21,7 +21,6 @@ An engineering and verification aid, not certified flight software.
 
 from __future__ import annotations
 
-import math
 from collections.abc import Mapping
 from dataclasses import dataclass, field
 from typing import Any
@@ -30,7 +29,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from .. import units as _units
-from ..vectors.catalogue import CATALOGUE
+from .bands import DISPLAY_UNIT, SPECS, Band, axes, bands, display, eng_inputs, json_float, to_unit
 from .compare import CheckResult, status_name
 from .compare import judge as judge_reference
 from .requirements import FunctionRequirement, Requirements
@@ -42,70 +41,6 @@ __all__ = ["Band", "OutputVerdict", "CaseRecord", "FunctionVerdict", "Report", "
 LEVEL_REFERENCE = "reference-equivalent"
 LEVEL_REQUIREMENTS = "requirements"
 PRECISION_LABEL = {"double": "binary64", "single": "binary32"}
-
-#: SI unit -> engineering unit used in reports.
-DISPLAY_UNIT = {"m": "ft", "m/s": "kt", "Pa": "hPa", "K": "K", "1": "1", "kg/m3": "kg/m3"}
-
-_SPECS = {s.name: s for s in CATALOGUE}
-
-#: Pressure-altitude band edges in ft: the ICAO layer bases (36 089, 65 617, 104 987 ft)
-#: and round figures between them.
-ALT_EDGES_FT = (-math.inf, 0.0, 10000.0, 20000.0, 30000.0, 36089.0, 50000.0, 65617.0,
-                104987.0, math.inf)
-MACH_EDGES = (0.0, 0.3, 0.6, 0.8, 1.0, 1.5, math.inf)
-#: Speed band edges in kt; 661.5 kt is a0 (340.294 m/s), the subsonic/supersonic switch
-#: of CAS.
-SPEED_EDGES_KT = (0.0, 100.0, 200.0, 300.0, 450.0, 661.5, math.inf)
-
-
-def display(si_unit: str) -> str:
-    """Engineering unit of an SI unit (the SI unit itself when no other is used)."""
-    return DISPLAY_UNIT.get(si_unit, si_unit)
-
-
-def to_unit(v: float, si_unit: str, unit: str, difference: bool = False) -> float:
-    """``v`` (SI) in ``unit``; ``difference`` ignores offsets (an error of 1 K is 1 degC)."""
-    if unit == si_unit or si_unit not in _units.UNITS or unit not in _units.UNITS:
-        return float(v)
-    if difference:
-        return float(v) / float(_units.UNITS[unit][1])
-    return float(_units.from_si(v, unit))
-
-
-def eng_inputs(fc: FunctionCases, i: int) -> dict[str, str]:
-    """Inputs of case ``i`` in engineering units, as text."""
-    spec = _SPECS.get(fc.name)
-    units = {a.name: a.unit for a in spec.args} if spec else {}
-    out = {}
-    for j, (name, kind) in enumerate(fc.inputs):
-        v = float(fc.x[i, j])
-        if kind == "flag":
-            out[name] = str(int(v)) if math.isfinite(v) else repr(v)
-            continue
-        si = units.get(name, "")
-        u = display(si)
-        unit = "" if u in ("1", "") else f" {u}"
-        out[name] = f"{to_unit(v, si, u):.6g}{unit}" if math.isfinite(v) else repr(v)
-    return out
-
-
-@dataclass
-class Band:
-    """One band of one output: how many cases were judged in it and how they did."""
-
-    axis: str
-    label: str
-    judged: int = 0
-    failed: int = 0
-    worst_error: float = 0.0
-    margin: float = 0.0
-
-    def as_dict(self) -> dict[str, Any]:
-        """JSON-ready form."""
-        return {"axis": self.axis, "band": self.label, "judged": self.judged,
-                "failed": self.failed, "worst_error": _jf(self.worst_error),
-                "margin": _jf(self.margin)}
-
 
 @dataclass
 class OutputVerdict:
@@ -146,15 +81,15 @@ class OutputVerdict:
         return {"output": self.output, "si_unit": self.si_unit, "unit": self.unit,
                 "requirement": self.requirement, "requirement_unit": self.req_unit,
                 "judged": self.judged, "failed": self.failed,
-                "worst_error": _jf(self.worst_error),
+                "worst_error": json_float(self.worst_error),
                 "worst_error_in_requirement_unit": None if self.worst_error_req is None
-                else _jf(self.worst_error_req),
+                else json_float(self.worst_error_req),
                 "worst_case": self.worst_case, "worst_where": self.worst_where,
-                "margin": _jf(self.margin), "margin_case": self.margin_case,
+                "margin": json_float(self.margin), "margin_case": self.margin_case,
                 "margin_where": self.margin_where,
                 "allowed_at_margin_case": None if self.allowed_at_margin is None
-                else _jf(self.allowed_at_margin),
-                "bound_ratio": _jf(self.bound_ratio),
+                else json_float(self.allowed_at_margin),
+                "bound_ratio": json_float(self.bound_ratio),
                 "bands": [b.as_dict() for b in self.bands]}
 
 
@@ -227,7 +162,7 @@ class FunctionVerdict:
             "nan_mismatches": self.nan_mismatches,
             "reference": None if self.reference is None else {
                 "passed": self.reference.passed, "failed": self.reference.failed,
-                "worst_bound_ratio": _jf(self.reference.worst),
+                "worst_bound_ratio": json_float(self.reference.worst),
                 "worst_case": self.reference.worst_id},
             "outputs": [o.as_dict() for o in self.outputs],
             "failures": [f.as_dict() for f in self.failures],
@@ -254,87 +189,15 @@ class Report:
         return all(f.ok for f in self.functions)
 
 
-def _jf(v: float) -> float | str:
-    if math.isnan(v):
-        return "nan"
-    if math.isinf(v):
-        return "inf" if v > 0 else "-inf"
-    return float(v)
-
-
 def _num(v: float) -> dict[str, Any]:
     """A value in decimal and C99 hex (both exact for binary64)."""
     return {"decimal": repr(float(v)), "hex": float(v).hex()}
 
 
-def _axes(fc: FunctionCases) -> list[tuple[str, NDArray[np.float64], tuple[float, ...],
-                                           str]]:
-    """Band axes of a function: (name, value per case, edges, unit)."""
-    import airdata
-
-    axes = []
-    names = [n for n, _ in fc.inputs]
-    col = {n: fc.x[:, j] for j, n in enumerate(names)}
-    outs = {n: fc.expected[:, j] for j, n in enumerate(fc.outputs)}
-    alt = None
-    if "ps" in col:
-        with np.errstate(all="ignore"):
-            alt = np.asarray(airdata.pressure_altitude(np.where(col["ps"] > 0, col["ps"],
-                                                                np.nan), strict=False))
-        axes_name = "pressure altitude (of ps)"
-    else:
-        for n in ("h", "z", "elevation", "ceiling"):
-            if n in col:
-                alt, axes_name = col[n], f"altitude ({n})"
-                break
-    if alt is not None:
-        axes.append((axes_name, np.asarray(alt) / _units.FT, ALT_EDGES_FT, "ft"))
-    if "mach" in col:
-        axes.append(("Mach (input)", col["mach"], MACH_EDGES, ""))
-    elif "mach" in outs:
-        axes.append(("Mach (reference output)", outs["mach"], MACH_EDGES, ""))
-    speed = next((n for n in ("cas", "eas", "tas", "cas_limit") if n in col), None)
-    if speed is not None:
-        axes.append((f"{speed} (input)", col[speed] / _units.KT, SPEED_EDGES_KT, "kt"))
-    else:
-        so = next((n for n in ("cas", "eas", "tas") if n in outs), None)
-        if so is not None:
-            axes.append((f"{so} (reference output)", outs[so] / _units.KT, SPEED_EDGES_KT,
-                         "kt"))
-    return axes
-
-
-def _edge(v: float, unit: str) -> str:
-    if math.isinf(v):
-        return "inf" if v > 0 else "-inf"
-    return f"{v:g}"
-
-
-def _bands(fc: FunctionCases, judged: NDArray[np.bool_], bad: NDArray[np.bool_],
-           err: NDArray[np.float64], ratio: NDArray[np.float64]) -> list[Band]:
-    out: list[Band] = []
-    for name, values, edges, unit in _axes(fc):
-        for lo, hi in zip(edges[:-1], edges[1:], strict=True):
-            with np.errstate(invalid="ignore"):
-                m = judged & (values >= lo) & (values < hi)
-            if not m.any():
-                continue
-            label = f"{_edge(lo, unit)} .. {_edge(hi, unit)} {unit}".rstrip()
-            out.append(Band(name, label, int(m.sum()), int((bad & m).sum()),
-                            float(err[m].max()), float(ratio[m].max())))
-    tags = sorted({t for ts in fc.tags for t in ts})
-    for t in tags:
-        m = judged & np.array([t in ts for ts in fc.tags], dtype=bool)
-        if m.any():
-            out.append(Band("tag", t, int(m.sum()), int((bad & m).sum()),
-                            float(err[m].max()), float(ratio[m].max())))
-    return out
-
-
 def _judge_function(suite: LoadedSuite, fc: FunctionCases, precision: str,
                     y: NDArray[np.float64], st: NDArray[np.int64],
                     req: Requirements | None) -> FunctionVerdict:
-    spec = _SPECS.get(fc.name)
+    spec = SPECS.get(fc.name)
     si_units = dict(spec.outputs) if spec else {o: "" for o in fc.outputs}
     single = precision == "single"
     eps = suite.eps_binary32 if single else suite.eps_binary64
@@ -438,14 +301,14 @@ def _judge_function(suite: LoadedSuite, fc: FunctionCases, precision: str,
             if tol is not None:
                 ov.allowed_at_margin = to_unit(float(tol.allowed(want[k:k + 1, j])[0]), si,
                                                tol.unit, difference=True)
-            ov.bands = _bands(fc, jm, jm & value_bad[:, j], e_u, ratio[:, j])
+            ov.bands = bands(fc, jm, jm & value_bad[:, j], e_u, ratio[:, j])
             idx = np.flatnonzero(jm)
             allowed_u = None
             if tol is not None:
                 allowed_si = tol.allowed(want[idx, j])
                 allowed_u = [to_unit(a, si, u, difference=True) for a in allowed_si]
             ov.series = {"index": idx, "error": e_u[idx], "allowed": allowed_u,
-                         "axes": [(nm, vals[idx], unit) for nm, vals, _, unit in _axes(fc)]}
+                         "axes": [(nm, vals[idx], unit) for nm, vals, _, unit in axes(fc)]}
         fv.outputs.append(ov)
     for i in np.flatnonzero(case_bad):
         reasons = []
@@ -456,9 +319,9 @@ def _judge_function(suite: LoadedSuite, fc: FunctionCases, precision: str,
             si = si_units.get(out, "")
             u = display(si)
             rec = {"output": out, "got": _num(y[i, j]), "expected": _num(want[i, j]),
-                   "error": _jf(to_unit(err_si[i, j], si, u, difference=True)),
-                   "unit": u, "ratio": _jf(float(ratio[i, j])),
-                   "bound_ratio": _jf(float(bratio[i, j]))}
+                   "error": json_float(to_unit(err_si[i, j], si, u, difference=True)),
+                   "unit": u, "ratio": json_float(float(ratio[i, j])),
+                   "bound_ratio": json_float(float(bratio[i, j]))}
             outs.append(rec)
             if nan_bad[i, j]:
                 reasons.append(f"{out}: got {float(y[i, j])!r} ({float(y[i, j]).hex()}), "
@@ -515,7 +378,7 @@ def judge(suite: LoadedSuite,
     for name, fc in suite.functions.items():
         r = results.get(name)
         if r is None:
-            spec = _SPECS.get(name)
+            spec = SPECS.get(name)
             fv = FunctionVerdict(name, fc.c_function, list(spec.equations) if spec else [],
                                  False, fc.count, None,
                                  requirements.functions.get(name) if requirements else None,

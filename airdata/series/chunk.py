@@ -16,10 +16,11 @@ from numpy.typing import NDArray
 from .. import units as u
 from ..chain import AirData, air_data
 from ..status import DomainError, Status
-from .compare import Comparison, RecordedComparison
+from .compare import Comparison
 from .csvio import parse_numbers
 from .options import ReduceOptions
 from .plan import Plan
+from .recorded import RecordedComparison
 from .timebase import TimeAxis
 
 __all__ = ["Chunk", "ZEROED_NOTE", "decimal_points", "reduce_chunk"]

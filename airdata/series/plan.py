@@ -10,9 +10,9 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from .. import units as u
-from .compare import RECORDED, RECORDED_SUFFIX, RecordedColumn, recorded_names
 from .csvio import ChunkReader, Column, HeaderError
 from .options import ReduceOptions
+from .recorded import RECORDED, RECORDED_SUFFIX, RecordedColumn, recorded_names
 
 __all__ = ["OUTPUTS", "ROLES", "Plan", "UsageError", "plan"]
 

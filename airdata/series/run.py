@@ -15,12 +15,13 @@ import numpy as np
 
 from ..status import Status
 from .chunk import decimal_points, reduce_chunk
-from .compare import Comparison, RecordedComparison
+from .compare import Comparison
 from .csvio import ChunkReader, file_format
 from .options import ReduceOptions
 from .plan import OUTPUTS
 from .plan import plan as make_plan
 from .progress import Progress
+from .recorded import RecordedComparison
 from .sinks import ArrowSink, CsvSink, round_outputs
 from .timebase import TimeAxis
 

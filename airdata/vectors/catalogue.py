@@ -22,6 +22,7 @@ import airdata
 
 from .. import _domains as dom
 from .._inputs import Domain, capture_statuses
+from ..chain import AIR_DATA_OUTPUTS as _CHAIN_OUT
 from ..chain import NOISE_BAND
 from ..pitot import RATIO_SONIC
 from ..profiles import Profile
@@ -188,8 +189,6 @@ def _single(fn: Callable[..., object], out: str, names: Sequence[str]
 
 _ATM_OUT = ("temperature", "pressure", "density", "speed_of_sound", "dynamic_viscosity",
             "kinematic_viscosity")
-_CHAIN_OUT = ("pressure_altitude", "baro_altitude", "impact_pressure", "mach", "cas", "eas",
-              "tas", "sat", "density", "density_altitude", "dynamic_pressure")
 
 
 def _call_atmosphere(x: dict[str, F64], profile: Profile, strict: bool) -> dict[str, F64]:
