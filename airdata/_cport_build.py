@@ -36,8 +36,8 @@ SRC = C_DIR / "src"
 
 #: Port sources, compiled into one translation unit per module (so the two modules
 #: never share object files).
-SOURCES = ("domains.c", "dd.c", "atmosphere.c", "altimetry.c", "pitot.c", "speeds.c",
-           "temperature.c", "chain.c", "limits.c", "batch.c")
+SOURCES = ("domains.c", "inputs.c", "dd.c", "atmosphere.c", "altimetry.c", "pitot.c",
+           "speeds.c", "temperature.c", "chain.c", "limits.c", "batch.c")
 
 _REAL_TYPEDEF = re.compile(r"^\s*typedef\s+(float|double)\s+ad_real\s*;\s*$")
 

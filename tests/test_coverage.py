@@ -196,7 +196,10 @@ def test_every_port_source_is_measured(coverage: dict[str, Coverage]) -> None:
     # batch.c and domains.c included: a file gcov never saw would not count as missed
     cov = coverage["both"]
     assert {f for f, _ in cov.lines} == {p.name for p in PORT}
-    assert all(cov.total("branches", p.name)[1] > 0 for p in PORT if p.name != "dd.c")
+    # every file that makes a decision has branches measured: all but dd.c (straight-line
+    # double-double arithmetic) and temperature.c (its argument checks are in inputs.c)
+    assert all(cov.total("branches", p.name)[1] > 0 for p in PORT
+               if p.name not in ("dd.c", "temperature.c"))
 
 
 #: Per precision, measured on 2026-12-01 (suite 1.0.0): binary64 reaches every line,

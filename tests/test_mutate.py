@@ -212,11 +212,19 @@ def test_cli_list_and_report(tmp_path: Path, capsys: pytest.CaptureFixture[str])
     assert "5 mutants of" in out and "temperature.c" in out
     _need_cc()
     rep = tmp_path / "r.json"
-    assert mutate.main(["--only", "temperature.c", "--ops", "status", "--sample", "2",
+    assert mutate.main(["--only", "inputs.c", "--ops", "status", "--sample", "2",
                         "--quiet", "--report", str(rep), "--workdir", str(tmp_path)]) == 0
     data = json.loads(rep.read_text())
     assert data["summary"]["overall"]["total"] == 2
     assert data["note"].endswith("not certified flight software.")
+
+
+def test_a_selection_without_mutants_is_refused(capsys: pytest.CaptureFixture[str]) -> None:
+    # temperature.c returns no status of its own (inputs.c does): nothing to mutate
+    with pytest.raises(SystemExit) as exc:
+        mutate.main(["--only", "temperature.c", "--ops", "status", "--list"])
+    assert exc.value.code == 2
+    assert "no mutants of operators status in temperature.c" in capsys.readouterr().err
 
 
 def test_a_raised_range_end_behind_a_derived_check_is_equivalent_and_a_lowered_one_not() -> None:

@@ -1431,6 +1431,10 @@ def main(argv: Sequence[str] | None = None) -> int:
         p.error(f"unknown configurations {sorted(set(configs) - set(CONFIGS))}")
     muts = [m for m in all_mutants(root, a.only) if m.operator in ops]
     population = len(muts)
+    if not muts:
+        # an empty run would report a score of nothing: refuse it
+        p.error(f"no mutants of operators {','.join(ops)} in "
+                f"{', '.join(a.only) if a.only else 'the port'}")
     if a.sample is not None:
         muts = sample_mutants(muts, a.sample, a.seed)
     if a.list:

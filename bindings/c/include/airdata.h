@@ -67,32 +67,48 @@ typedef struct {
 
 /* atmosphere.c */
 ad_status ad_atmosphere(ad_real h, ad_real dT, ad_atmosphere_t *out);
+/* ATM-7: geopotential altitude h (m) of geometric altitude z (m). */
 ad_status ad_geopotential_altitude(ad_real z, ad_real *h);
+/* ATM-8: geometric altitude z (m) of geopotential altitude h (m). */
 ad_status ad_geometric_altitude(ad_real h, ad_real *z);
 
 /* altimetry.c */
+/* ALT-1: pressure altitude h (m) of static pressure ps (Pa). */
 ad_status ad_pressure_altitude(ad_real ps, ad_real *h);
+/* ATM-3: standard static pressure ps (Pa) at pressure altitude h (m). */
 ad_status ad_pressure_at_altitude(ad_real h, ad_real *ps);
+/* ALT-2: altitude h (m) above the altimeter setting (Pa) at static pressure ps (Pa). */
 ad_status ad_baro_corrected_altitude(ad_real ps, ad_real setting, ad_real *h);
+/* ALT-3: altimeter setting (Pa) from station pressure ps (Pa) at elevation (m). */
 ad_status ad_altimeter_setting(ad_real ps, ad_real elevation, ad_real *setting);
+/* ALT-4: density altitude h (m) of static pressure ps (Pa) and SAT (K). */
 ad_status ad_density_altitude(ad_real ps, ad_real sat, ad_real *h);
 
 /* pitot.c */
+/* PIT-1: impact pressure qc (Pa) of Mach number and static pressure ps (Pa). */
 ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc);
+/* PIT-2: Mach number of impact pressure qc and static pressure ps (Pa). */
 ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach);
+/* PIT-3: impact pressure qc (Pa) of calibrated airspeed cas (m/s). */
 ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc);
+/* PIT-4: calibrated airspeed cas (m/s) of impact pressure qc (Pa). */
 ad_status ad_cas_from_impact_pressure(ad_real qc, ad_real *cas);
 
 /* speeds.c */
+/* SPD-1: CAS (m/s) of Mach number at static pressure ps (Pa), and the inverse. */
 ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas);
 ad_status ad_mach_from_cas(ad_real cas, ad_real ps, ad_real *mach);
+/* SPD-2: EAS (m/s) of Mach number at static pressure ps (Pa), and the inverse. */
 ad_status ad_eas_from_mach(ad_real mach, ad_real ps, ad_real *eas);
 ad_status ad_mach_from_eas(ad_real eas, ad_real ps, ad_real *mach);
+/* SPD-3: TAS (m/s) of Mach number at static air temperature sat (K), and the inverse. */
 ad_status ad_tas_from_mach(ad_real mach, ad_real sat, ad_real *tas);
 ad_status ad_mach_from_tas(ad_real tas, ad_real sat, ad_real *mach);
+/* SPD-4: dynamic pressure q (Pa) of Mach number at static pressure ps (Pa). */
 ad_status ad_dynamic_pressure(ad_real mach, ad_real ps, ad_real *q);
 
-/* temperature.c */
+/* temperature.c: TMP-1, SAT (K) from TAT (K) at a Mach number and probe recovery
+ * factor, and the inverse. */
 ad_status ad_sat_from_tat(ad_real tat, ad_real mach, ad_real recovery, ad_real *sat);
 ad_status ad_tat_from_sat(ad_real sat, ad_real mach, ad_real recovery, ad_real *tat);
 

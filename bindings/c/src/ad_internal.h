@@ -65,25 +65,46 @@ typedef struct {
 /* The layer table, defined once in atmosphere.c (read only). */
 extern const ad_layer ad_i_layer[AD_NLAYERS];
 
+/* The libm functions of the real type: the f-suffixed ones on float. */
 #if defined(AIRDATA_SINGLE)
-static inline ad_real ad_exp(ad_real x) { return expf(x); }
-static inline ad_real ad_log(ad_real x) { return logf(x); }
-static inline ad_real ad_log1p(ad_real x) { return log1pf(x); }
-static inline ad_real ad_expm1(ad_real x) { return expm1f(x); }
-static inline ad_real ad_sqrt(ad_real x) { return sqrtf(x); }
+#define AD_LIBM_EXP expf
+#define AD_LIBM_LOG logf
+#define AD_LIBM_LOG1P log1pf
+#define AD_LIBM_EXPM1 expm1f
+#define AD_LIBM_SQRT sqrtf
 #else
-static inline ad_real ad_exp(ad_real x) { return exp(x); }
-static inline ad_real ad_log(ad_real x) { return log(x); }
-static inline ad_real ad_log1p(ad_real x) { return log1p(x); }
-static inline ad_real ad_expm1(ad_real x) { return expm1(x); }
-static inline ad_real ad_sqrt(ad_real x) { return sqrt(x); }
+#define AD_LIBM_EXP exp
+#define AD_LIBM_LOG log
+#define AD_LIBM_LOG1P log1p
+#define AD_LIBM_EXPM1 expm1
+#define AD_LIBM_SQRT sqrt
 #endif
+
+static inline ad_real ad_exp(ad_real x) { return AD_LIBM_EXP(x); }
+static inline ad_real ad_log(ad_real x) { return AD_LIBM_LOG(x); }
+static inline ad_real ad_log1p(ad_real x) { return AD_LIBM_LOG1P(x); }
+static inline ad_real ad_expm1(ad_real x) { return AD_LIBM_EXPM1(x); }
+static inline ad_real ad_sqrt(ad_real x) { return AD_LIBM_SQRT(x); }
 
 /* A quiet NaN of the real type. */
 static inline ad_real ad_nan(void) { return (ad_real)NAN; }
 
 /* domains.c: status of x against an argument domain (airdata/_inputs.py classify). */
 ad_status ad_i_check(ad_real x, ad_domain_id domain);
+
+/* inputs.c: the input handling of every public function (airdata/_inputs.py). */
+/* AD_INVALID_INPUT when out is NULL, else the status of a in domain da. */
+ad_status ad_i_inputs1(const void *out, ad_real a, ad_domain_id da);
+/* The same, then b in db (the first bad argument decides). */
+ad_status ad_i_inputs2(const void *out, ad_real a, ad_domain_id da, ad_real b,
+                       ad_domain_id db);
+/* The same, then c in dc. */
+ad_status ad_i_inputs3(const void *out, ad_real a, ad_domain_id da, ad_real b,
+                       ad_domain_id db, ad_real c, ad_domain_id dc);
+/* st when it is not AD_OK, else the status of x in domain. */
+ad_status ad_i_then(ad_status st, ad_real x, ad_domain_id domain);
+/* Writes y (st AD_OK) or a NaN through out, nothing when out is NULL; returns st. */
+ad_status ad_i_finish(ad_status st, ad_real y, ad_real *out);
 
 /* atmosphere.c */
 int ad_i_layer_of_altitude(ad_real h);

@@ -92,42 +92,25 @@ static void ad_state_dd(ad_real h, ad_real dT, int i, ad_atmosphere_t *out)
 /* ATM-2 .. ATM-6: the atmosphere at geopotential altitude h and deviation dT. */
 ad_status ad_atmosphere(ad_real h, ad_real dT, ad_atmosphere_t *out)
 {
-    ad_status st;
-    if (out == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_i_check(h, AD_DOM_ALTITUDE);
+    const ad_status st = ad_i_inputs2(out, h, AD_DOM_ALTITUDE, dT, AD_DOM_DELTA_T);
     if (st == AD_OK) {
-        st = ad_i_check(dT, AD_DOM_DELTA_T);
-    }
-    if (st != AD_OK) {
+        ad_state_dd(h, dT, ad_i_layer_of_altitude(h), out);
+    } else if (out != NULL) {
         ad_atmosphere_nan(out);
-        return st;
     }
-    ad_state_dd(h, dT, ad_i_layer_of_altitude(h), out);
-    return AD_OK;
+    return st;
 }
 
 /* ATM-7: h = r0 z/(r0 + z), within 1.5 ulp (three correctly rounded operations). */
 ad_status ad_geopotential_altitude(ad_real z, ad_real *h)
 {
-    ad_status st;
-    if (h == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_i_check(z, AD_DOM_GEOMETRIC);
-    *h = (st == AD_OK) ? (AD_R0 * z / (AD_R0 + z)) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs1(h, z, AD_DOM_GEOMETRIC);
+    return ad_i_finish(st, AD_R0 * z / (AD_R0 + z), h);
 }
 
 /* ATM-8: z = r0 h/(r0 - h), within 1.5 ulp (three correctly rounded operations). */
 ad_status ad_geometric_altitude(ad_real h, ad_real *z)
 {
-    ad_status st;
-    if (z == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_i_check(h, AD_DOM_ALTITUDE);
-    *z = (st == AD_OK) ? (AD_R0 * h / (AD_R0 - h)) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs1(z, h, AD_DOM_ALTITUDE);
+    return ad_i_finish(st, AD_R0 * h / (AD_R0 - h), z);
 }

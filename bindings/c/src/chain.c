@@ -30,27 +30,15 @@ static void ad_air_data_nan(ad_air_data_t *out)
     out->dynamic_pressure = ad_nan();
 }
 
-/* The argument checks, in order. */
+/* The NULL rule, then the argument checks, in order. */
 static ad_status ad_chain_arguments(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
-                                    ad_real setting, int use_setting, ad_real noise_band)
+                                    ad_real setting, int use_setting, ad_real noise_band,
+                                    const ad_air_data_t *out)
 {
-    ad_status st = ad_i_check(noise_band, AD_DOM_NOISE_BAND);
-    if (st == AD_OK) {
-        st = ad_i_check(ps, AD_DOM_PRESSURE);
-    }
-    if (st == AD_OK) {
-        st = ad_i_check(pt, AD_DOM_TOTAL_PRESSURE);
-    }
-    if (st == AD_OK) {
-        st = ad_i_check(tat, AD_DOM_TEMPERATURE);
-    }
-    if (st == AD_OK) {
-        st = ad_i_check(recovery, AD_DOM_RECOVERY);
-    }
-    if ((st == AD_OK) && (use_setting != 0)) {
-        st = ad_i_check(setting, AD_DOM_SETTING);
-    }
-    return st;
+    ad_status st = ad_i_inputs3(out, noise_band, AD_DOM_NOISE_BAND, ps, AD_DOM_PRESSURE, pt,
+                                AD_DOM_TOTAL_PRESSURE);
+    st = ad_i_then(ad_i_then(st, tat, AD_DOM_TEMPERATURE), recovery, AD_DOM_RECOVERY);
+    return (use_setting != 0) ? ad_i_then(st, setting, AD_DOM_SETTING) : st;
 }
 
 /* The impact-pressure checks; *qc receives pt - ps, zeroed inside the noise band. */
@@ -102,13 +90,10 @@ ad_status ad_air_data(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
                       ad_real setting, int use_setting, ad_real noise_band,
                       ad_air_data_t *out)
 {
-    ad_status st;
     ad_status flag = AD_OK;
     ad_real qc = (ad_real)0;
-    if (out == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_chain_arguments(ps, pt, tat, recovery, setting, use_setting, noise_band);
+    ad_status st = ad_chain_arguments(ps, pt, tat, recovery, setting, use_setting, noise_band,
+                                      out);
     if (st == AD_OK) {
         st = ad_chain_impact(ps, pt, noise_band, &qc);
     }
@@ -120,7 +105,9 @@ ad_status ad_air_data(ad_real ps, ad_real pt, ad_real tat, ad_real recovery,
         st = ad_chain_outputs(ps, qc, tat, recovery, out);
     }
     if (st != AD_OK) {
-        ad_air_data_nan(out);
+        if (out != NULL) {
+            ad_air_data_nan(out);
+        }
         return st;
     }
     out->baro_altitude = (use_setting != 0)

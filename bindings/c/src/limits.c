@@ -40,32 +40,11 @@ static int ad_both_tiny(ad_real m0, ad_real m)
     return ((m0 < AD_LIM_TINY_MACH) && (m < AD_LIM_TINY_MACH)) ? 1 : 0;
 }
 
-/* Status of two arguments, in order. */
-static ad_status ad_lim_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id db)
+/* The NULL rule, then weight, wing area and CLmax, the first three arguments of every
+ * stall function. */
+static ad_status ad_wing_inputs(const ad_real *out, ad_real w, ad_real s, ad_real cl)
 {
-    ad_status st = ad_i_check(a, da);
-    if (st == AD_OK) {
-        st = ad_i_check(b, db);
-    }
-    return st;
-}
-
-/* Status of three arguments, in order. */
-static ad_status ad_lim_check3(ad_real a, ad_domain_id da, ad_real b, ad_domain_id db,
-                           ad_real c, ad_domain_id dc)
-{
-    ad_status st = ad_lim_check2(a, da, b, db);
-    if (st == AD_OK) {
-        st = ad_i_check(c, dc);
-    }
-    return st;
-}
-
-/* Status of weight, wing area and CLmax, the first three arguments of every stall
- * function. */
-static ad_status ad_check_wing(ad_real w, ad_real s, ad_real cl)
-{
-    return ad_lim_check3(w, AD_DOM_WEIGHT, s, AD_DOM_WING_AREA, cl, AD_DOM_CL_MAX);
+    return ad_i_inputs3(out, w, AD_DOM_WEIGHT, s, AD_DOM_WING_AREA, cl, AD_DOM_CL_MAX);
 }
 
 /* Smallest normal number of the real type (below it a product loses precision). */
@@ -111,40 +90,36 @@ static ad_status ad_stall_mach_i(ad_real w, ad_real s, ad_real cl, ad_real n, ad
 ad_status ad_stall_eas(ad_real weight, ad_real wing_area, ad_real cl_max,
                        ad_real load_factor, ad_real *eas)
 {
-    ad_status st;
     ad_real y = (ad_real)0;
-    if (eas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check_wing(weight, wing_area, cl_max);
-    if (st == AD_OK) {
-        st = ad_i_check(load_factor, AD_DOM_LOAD_FACTOR);
-    }
+    ad_status st = ad_i_then(ad_wing_inputs(eas, weight, wing_area, cl_max), load_factor,
+                             AD_DOM_LOAD_FACTOR);
     if (st == AD_OK) {
         st = ad_stall_eas_i(weight, wing_area, cl_max, load_factor, &y);
     }
-    *eas = (st == AD_OK) ? y : ad_nan();
-    return st;
+    return ad_i_finish(st, y, eas);
+}
+
+/* The stall functions at ps: the NULL rule, the arguments in order (ps, then sat when
+ * with_sat, then load_factor), then the stall Mach number m (LIM-2). */
+static ad_status ad_stall_at(ad_real w, ad_real s, ad_real cl, ad_real ps, int with_sat,
+                             ad_real sat, ad_real n, const ad_real *out, ad_real *m)
+{
+    ad_status st = ad_i_then(ad_wing_inputs(out, w, s, cl), ps, AD_DOM_PRESSURE);
+    if (with_sat != 0) {
+        st = ad_i_then(st, sat, AD_DOM_TEMPERATURE);
+    }
+    st = ad_i_then(st, n, AD_DOM_LOAD_FACTOR);
+    return (st == AD_OK) ? ad_stall_mach_i(w, s, cl, n, ps, m) : st;
 }
 
 /* LIM-2: stall Mach number at ps (SPD-2 inverted). */
 ad_status ad_stall_mach(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
                         ad_real load_factor, ad_real *mach)
 {
-    ad_status st;
     ad_real m = (ad_real)0;
-    if (mach == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check_wing(weight, wing_area, cl_max);
-    if (st == AD_OK) {
-        st = ad_lim_check2(ps, AD_DOM_PRESSURE, load_factor, AD_DOM_LOAD_FACTOR);
-    }
-    if (st == AD_OK) {
-        st = ad_stall_mach_i(weight, wing_area, cl_max, load_factor, ps, &m);
-    }
-    *mach = (st == AD_OK) ? m : ad_nan();
-    return st;
+    const ad_status st = ad_stall_at(weight, wing_area, cl_max, ps, 0, (ad_real)0,
+                                     load_factor, mach, &m);
+    return ad_i_finish(st, m, mach);
 }
 
 /* LIM-2: stall CAS at ps, cas = a0 F^-1(ps f(M)/p0) (SPD-1, linear below M = 2^-40);
@@ -152,46 +127,25 @@ ad_status ad_stall_mach(ad_real weight, ad_real wing_area, ad_real cl_max, ad_re
 ad_status ad_stall_cas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
                        ad_real load_factor, ad_real *cas)
 {
-    ad_status st;
     ad_real m = (ad_real)0;
     ad_real x = (ad_real)0;
-    if (cas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check_wing(weight, wing_area, cl_max);
-    if (st == AD_OK) {
-        st = ad_lim_check2(ps, AD_DOM_PRESSURE, load_factor, AD_DOM_LOAD_FACTOR);
-    }
-    if (st == AD_OK) {
-        st = ad_stall_mach_i(weight, wing_area, cl_max, load_factor, ps, &m);
-    }
+    ad_status st = ad_stall_at(weight, wing_area, cl_max, ps, 0, (ad_real)0, load_factor,
+                               cas, &m);
     if (st == AD_OK) {
         x = ps * ad_i_ratio_from_mach(m) / AD_P0;
         st = (x > AD_RATIO_MAX) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *cas = (st == AD_OK) ? ad_i_cas_of_mach(m, ps / AD_P0, x) : ad_nan();
-    return st;
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_cas_of_mach(m, ps / AD_P0, x) : ad_nan(), cas);
 }
 
 /* LIM-2: stall TAS at ps and sat, tas = M sqrt(gamma R sat) (SPD-3). */
 ad_status ad_stall_tas(ad_real weight, ad_real wing_area, ad_real cl_max, ad_real ps,
                        ad_real sat, ad_real load_factor, ad_real *tas)
 {
-    ad_status st;
     ad_real m = (ad_real)0;
-    if (tas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check_wing(weight, wing_area, cl_max);
-    if (st == AD_OK) {
-        st = ad_lim_check3(ps, AD_DOM_PRESSURE, sat, AD_DOM_TEMPERATURE,
-                       load_factor, AD_DOM_LOAD_FACTOR);
-    }
-    if (st == AD_OK) {
-        st = ad_stall_mach_i(weight, wing_area, cl_max, load_factor, ps, &m);
-    }
-    *tas = (st == AD_OK) ? (m * ad_sqrt(AD_GAMMA_R * sat)) : ad_nan();
-    return st;
+    const ad_status st = ad_stall_at(weight, wing_area, cl_max, ps, 1, sat, load_factor, tas,
+                                     &m);
+    return ad_i_finish(st, m * ad_sqrt(AD_GAMMA_R * sat), tas);
 }
 
 /* PIT-3 on a checked CAS limit: qc = p0 f(cas/a0); derived check cas/a0 <= 10. */
@@ -208,15 +162,12 @@ static ad_status ad_cas_limit_qc(ad_real cas_limit, ad_real *qc)
  * the pressure range. */
 ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *h)
 {
-    ad_status st;
     ad_real qc = (ad_real)0;
     ad_real ps = (ad_real)0;
-    if (h == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_lim_check2(cas_limit, AD_DOM_CAS_LIMIT, mach_limit, AD_DOM_SUBSONIC_MACH_LIMIT);
-    if (st == AD_OK) {
-        st = (mach_limit >= AD_K_1) ? AD_OUT_OF_RANGE : AD_OK;
+    ad_status st = ad_i_inputs2(h, cas_limit, AD_DOM_CAS_LIMIT, mach_limit,
+                                AD_DOM_SUBSONIC_MACH_LIMIT);
+    if ((st == AD_OK) && (mach_limit >= AD_K_1)) {
+        st = AD_OUT_OF_RANGE;
     }
     if (st == AD_OK) {
         st = ad_cas_limit_qc(cas_limit, &qc);
@@ -228,17 +179,16 @@ ad_status ad_crossover_altitude(ad_real cas_limit, ad_real mach_limit, ad_real *
                                           : (qc / ad_i_ratio_from_mach(mach_limit));
         st = ((ps < AD_PRESSURE_LO) || (ps > AD_PRESSURE_HI)) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    *h = (st == AD_OK) ? ad_i_altitude_of_pressure(ps) : ad_nan();
-    return st;
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_altitude_of_pressure(ps) : ad_nan(), h);
 }
 
 /* LIM-4 arguments (ps, cas_limit, mach_limit) checked in order, then cas_limit/a0;
  * the impact pressures of the two limits at ps. */
-static ad_status ad_limit_qc(ad_real ps, ad_real cas_limit, ad_real mach_limit,
-                             ad_real *qc_cas, ad_real *qc_mach)
+static ad_status ad_limit_qc(const ad_real *out, ad_real ps, ad_real cas_limit,
+                             ad_real mach_limit, ad_real *qc_cas, ad_real *qc_mach)
 {
-    ad_status st = ad_lim_check3(ps, AD_DOM_PRESSURE, cas_limit, AD_DOM_CAS_LIMIT,
-                             mach_limit, AD_DOM_MACH_LIMIT);
+    ad_status st = ad_i_inputs3(out, ps, AD_DOM_PRESSURE, cas_limit, AD_DOM_CAS_LIMIT,
+                                mach_limit, AD_DOM_MACH_LIMIT);
     *qc_cas = (ad_real)0;
     *qc_mach = (ad_real)0;
     if (st == AD_OK) {
@@ -250,92 +200,67 @@ static ad_status ad_limit_qc(ad_real ps, ad_real cas_limit, ad_real mach_limit,
     return st;
 }
 
-/* LIM-4: 1 where the CAS limit governs at ps: qc_cas <= qc_mach, or, both limits
- * below Mach 2^-40, cas/a0 <= M sqrt(ps/p0). */
-static int ad_cas_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit,
-                          ad_real qc_cas, ad_real qc_mach)
+/* LIM-4: 1 where the limit asked for governs at ps (ties go to it): the CAS limit
+ * where qc_cas <= qc_mach, the Mach limit (want_mach) where qc_mach <= qc_cas; both
+ * limits below Mach 2^-40, the same comparison of cas/a0 and M sqrt(ps/p0). */
+static int ad_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit, ad_real qc_cas,
+                      ad_real qc_mach, int want_mach)
 {
-    const ad_real m0 = cas_limit / AD_A0;
-    int by_cas;
-    if (ad_both_tiny(m0, mach_limit) != 0) {
-        by_cas = ((ad_i_tiny_up(cas_limit) / AD_A0)
-                  <= (ad_i_tiny_up(mach_limit) * ad_sqrt(ps / AD_P0))) ? 1 : 0;
-    } else {
-        by_cas = (qc_cas <= qc_mach) ? 1 : 0;
+    ad_real side_cas = qc_cas;
+    ad_real side_mach = qc_mach;
+    if (ad_both_tiny(cas_limit / AD_A0, mach_limit) != 0) {
+        side_cas = ad_i_tiny_up(cas_limit) / AD_A0;
+        side_mach = ad_i_tiny_up(mach_limit) * ad_sqrt(ps / AD_P0);
     }
-    return by_cas;
+    if (want_mach != 0) {
+        return (side_mach <= side_cas) ? 1 : 0;
+    }
+    return (side_cas <= side_mach) ? 1 : 0;
 }
 
-/* LIM-4: 1 where the Mach limit governs at ps: qc_mach <= qc_cas, or, both limits
- * below Mach 2^-40, M sqrt(ps/p0) <= cas/a0 (ties go to the limit asked for). */
-static int ad_mach_governs(ad_real ps, ad_real cas_limit, ad_real mach_limit,
-                           ad_real qc_cas, ad_real qc_mach)
+/* LIM-4: the maximum operating speed at ps, the Mach number (want_mach) or the CAS:
+ * - CAS: cas_limit where it governs, else the CAS of the Mach limit, a0 F^-1(qc_mach/p0)
+ *   (SPD-1, linear below M = 2^-40; then qc_mach/p0 < qc_cas/p0 <= AD_RATIO_MAX);
+ * - Mach: mach_limit where it governs, else the Mach number of the CAS limit,
+ *   F^-1(qc_cas/ps) (SPD-1 inverted, linear below cas/a0 = 2^-40; then
+ *   qc_cas/ps < qc_mach/ps <= AD_RATIO_MAX). */
+static ad_status ad_max_operating(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                                  int want_mach, ad_real *out)
 {
-    const ad_real m0 = cas_limit / AD_A0;
-    int by_mach;
-    if (ad_both_tiny(m0, mach_limit) != 0) {
-        by_mach = ((ad_i_tiny_up(mach_limit) * ad_sqrt(ps / AD_P0))
-                   <= (ad_i_tiny_up(cas_limit) / AD_A0)) ? 1 : 0;
-    } else {
-        by_mach = (qc_mach <= qc_cas) ? 1 : 0;
-    }
-    return by_mach;
-}
-
-/* LIM-4: maximum operating CAS at ps: cas_limit where it governs, else the CAS of the
- * Mach limit, a0 F^-1(qc_mach/p0) (SPD-1, linear below M = 2^-40; then
- * qc_mach/p0 < qc_cas/p0 <= AD_RATIO_MAX). */
-ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit,
-                               ad_real *cas)
-{
-    ad_status st;
     ad_real qc_cas = (ad_real)0;
     ad_real qc_mach = (ad_real)0;
     ad_real y = (ad_real)0;
-    if (cas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_limit_qc(ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
-    if (st == AD_OK) {
-        y = (ad_cas_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach) != 0)
+    const ad_status st = ad_limit_qc(out, ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
+    if ((st == AD_OK) && (want_mach != 0)) {
+        y = (ad_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach, 1) != 0)
+                ? mach_limit
+                : ad_i_mach_of_cas(cas_limit, AD_P0 / ps, qc_cas / ps);
+    } else if (st == AD_OK) {
+        y = (ad_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach, 0) != 0)
                 ? cas_limit
                 : ad_i_cas_of_mach(mach_limit, ps / AD_P0, qc_mach / AD_P0);
     }
-    *cas = (st == AD_OK) ? y : ad_nan();
-    return st;
+    return ad_i_finish(st, y, out);
 }
 
-/* LIM-4: maximum operating Mach number at ps: mach_limit where it governs, else the
- * Mach number of the CAS limit, F^-1(qc_cas/ps) (SPD-1 inverted, linear below
- * cas/a0 = 2^-40; then qc_cas/ps < qc_mach/ps <= AD_RATIO_MAX). */
+/* LIM-4: maximum operating CAS at ps. */
+ad_status ad_max_operating_cas(ad_real ps, ad_real cas_limit, ad_real mach_limit,
+                               ad_real *cas)
+{
+    return ad_max_operating(ps, cas_limit, mach_limit, 0, cas);
+}
+
+/* LIM-4: maximum operating Mach number at ps. */
 ad_status ad_max_operating_mach(ad_real ps, ad_real cas_limit, ad_real mach_limit,
                                 ad_real *mach)
 {
-    ad_status st;
-    ad_real qc_cas = (ad_real)0;
-    ad_real qc_mach = (ad_real)0;
-    ad_real y = (ad_real)0;
-    if (mach == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_limit_qc(ps, cas_limit, mach_limit, &qc_cas, &qc_mach);
-    if (st == AD_OK) {
-        y = (ad_mach_governs(ps, cas_limit, mach_limit, qc_cas, qc_mach) != 0)
-                ? mach_limit
-                : ad_i_mach_of_cas(cas_limit, AD_P0 / ps, qc_cas / ps);
-    }
-    *mach = (st == AD_OK) ? y : ad_nan();
-    return st;
+    return ad_max_operating(ps, cas_limit, mach_limit, 1, mach);
 }
 
 /* LIM-5: margin to a maximum altitude given as a pressure altitude, ceiling - H(ps). */
 ad_status ad_ceiling_margin(ad_real ps, ad_real ceiling, ad_real *margin)
 {
-    ad_status st;
-    if (margin == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_lim_check2(ps, AD_DOM_PRESSURE, ceiling, AD_DOM_ALTITUDE);
-    *margin = (st == AD_OK) ? (ceiling - ad_i_altitude_of_pressure(ps)) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(margin, ps, AD_DOM_PRESSURE, ceiling, AD_DOM_ALTITUDE);
+    return ad_i_finish(st, (st == AD_OK) ? (ceiling - ad_i_altitude_of_pressure(ps)) : ad_nan(),
+                       margin);
 }

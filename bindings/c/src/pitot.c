@@ -190,66 +190,39 @@ ad_real ad_i_impact_from_mach(ad_real m, ad_real p)
 /* PIT-1: qc = ps f(M). */
 ad_status ad_impact_pressure_from_mach(ad_real mach, ad_real ps, ad_real *qc)
 {
-    ad_status st;
-    if (qc == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_i_check(mach, AD_DOM_MACH);
-    if (st == AD_OK) {
-        st = ad_i_check(ps, AD_DOM_PRESSURE);
-    }
-    *qc = (st == AD_OK) ? ad_i_impact_from_mach(mach, ps) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(qc, mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_impact_from_mach(mach, ps) : ad_nan(), qc);
 }
 
 /* PIT-2: Mach number of (qc, ps); derived check qc/ps <= AD_RATIO_LIMIT (Mach 10). */
 ad_status ad_mach_from_impact_pressure(ad_real qc, ad_real ps, ad_real *mach)
 {
-    ad_status st;
-    if (mach == NULL) {
-        return AD_INVALID_INPUT;
+    ad_status st = ad_i_inputs2(mach, qc, AD_DOM_IMPACT_PRESSURE, ps, AD_DOM_PRESSURE);
+    if ((st == AD_OK) && ((qc / ps) > AD_RATIO_LIMIT)) {
+        st = AD_OUT_OF_RANGE;
     }
-    st = ad_i_check(qc, AD_DOM_IMPACT_PRESSURE);
-    if (st == AD_OK) {
-        st = ad_i_check(ps, AD_DOM_PRESSURE);
-    }
-    if (st == AD_OK) {
-        const ad_real x = qc / ps;
-        st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-    }
-    *mach = (st == AD_OK) ? ad_i_mach_from_pressures(qc, ps) : ad_nan();
-    return st;
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_mach_from_pressures(qc, ps) : ad_nan(),
+                       mach);
 }
 
 /* PIT-3: qc = p0 f(cas/a0); derived check cas/a0 <= AD_MACH_LIMIT (10). */
 ad_status ad_impact_pressure_from_cas(ad_real cas, ad_real *qc)
 {
-    ad_status st;
-    ad_real m = (ad_real)0;
-    if (qc == NULL) {
-        return AD_INVALID_INPUT;
+    const ad_real m = cas / AD_A0;
+    ad_status st = ad_i_inputs1(qc, cas, AD_DOM_SPEED);
+    if ((st == AD_OK) && (m > AD_MACH_LIMIT)) {
+        st = AD_OUT_OF_RANGE;
     }
-    st = ad_i_check(cas, AD_DOM_SPEED);
-    if (st == AD_OK) {
-        m = cas / AD_A0;
-        st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-    }
-    *qc = (st == AD_OK) ? ad_i_impact_from_mach(m, AD_P0) : ad_nan();
-    return st;
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_impact_from_mach(m, AD_P0) : ad_nan(), qc);
 }
 
 /* PIT-4: cas = a0 f^-1(qc/p0); derived check qc/p0 <= AD_RATIO_LIMIT (CAS <= 10 a0). */
 ad_status ad_cas_from_impact_pressure(ad_real qc, ad_real *cas)
 {
-    ad_status st;
-    if (cas == NULL) {
-        return AD_INVALID_INPUT;
+    ad_status st = ad_i_inputs1(cas, qc, AD_DOM_IMPACT_PRESSURE);
+    if ((st == AD_OK) && ((qc / AD_P0) > AD_RATIO_LIMIT)) {
+        st = AD_OUT_OF_RANGE;
     }
-    st = ad_i_check(qc, AD_DOM_IMPACT_PRESSURE);
-    if (st == AD_OK) {
-        const ad_real x = qc / AD_P0;
-        st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-    }
-    *cas = (st == AD_OK) ? (AD_A0 * ad_i_mach_from_pressures(qc, AD_P0)) : ad_nan();
-    return st;
+    return ad_i_finish(st, (st == AD_OK) ? (AD_A0 * ad_i_mach_from_pressures(qc, AD_P0))
+                                         : ad_nan(), cas);
 }

@@ -10,14 +10,16 @@
  */
 #include "ad_internal.h"
 
-/* Status of the two arguments (a, in domain da) then (b, in domain db). */
-static ad_status ad_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id db)
+/* SPD-1: after the checks st, the pressure ratio x = a f(m) / b (a/b = ps/p0 from Mach
+ * to CAS, p0/ps from CAS to Mach) with the derived check x <= AD_RATIO_LIMIT. */
+static ad_status ad_spd1_ratio(ad_status st, ad_real m, ad_real a, ad_real b, ad_real *x)
 {
-    ad_status st = ad_i_check(a, da);
+    ad_status out = st;
     if (st == AD_OK) {
-        st = ad_i_check(b, db);
+        *x = a * ad_i_ratio_from_mach(m) / b;
+        out = (*x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
     }
-    return st;
+    return out;
 }
 
 /*
@@ -27,18 +29,11 @@ static ad_status ad_check2(ad_real a, ad_domain_id da, ad_real b, ad_domain_id d
  */
 ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas)
 {
-    ad_status st;
     ad_real x = (ad_real)0;
-    if (cas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check2(mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
-    if (st == AD_OK) {
-        x = ps * ad_i_ratio_from_mach(mach) / AD_P0;
-        st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-    }
-    *cas = (st == AD_OK) ? ad_i_cas_of_mach(mach, ps / AD_P0, x) : ad_nan();
-    return st;
+    const ad_status st = ad_spd1_ratio(ad_i_inputs2(cas, mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE),
+                                       mach, ps, AD_P0, &x);
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_cas_of_mach(mach, ps / AD_P0, x) : ad_nan(),
+                       cas);
 }
 
 /*
@@ -48,90 +43,56 @@ ad_status ad_cas_from_mach(ad_real mach, ad_real ps, ad_real *cas)
  */
 ad_status ad_mach_from_cas(ad_real cas, ad_real ps, ad_real *mach)
 {
-    ad_status st;
+    const ad_real m0 = cas / AD_A0;
     ad_real x = (ad_real)0;
-    if (mach == NULL) {
-        return AD_INVALID_INPUT;
+    ad_status st = ad_i_inputs2(mach, cas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
+    if ((st == AD_OK) && (m0 > AD_MACH_LIMIT)) {
+        st = AD_OUT_OF_RANGE;
     }
-    st = ad_check2(cas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
-    if (st == AD_OK) {
-        const ad_real m0 = cas / AD_A0;
-        st = (m0 > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-        if (st == AD_OK) {
-            x = AD_P0 * ad_i_ratio_from_mach(m0) / ps;
-            st = (x > AD_RATIO_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-        }
-    }
-    *mach = (st == AD_OK) ? ad_i_mach_of_cas(cas, AD_P0 / ps, x) : ad_nan();
-    return st;
+    st = ad_spd1_ratio(st, m0, AD_P0, ps, &x);
+    return ad_i_finish(st, (st == AD_OK) ? ad_i_mach_of_cas(cas, AD_P0 / ps, x) : ad_nan(),
+                       mach);
 }
 
 /* SPD-2: eas = M a0 sqrt(ps/p0), within 2.5 ulp. */
 ad_status ad_eas_from_mach(ad_real mach, ad_real ps, ad_real *eas)
 {
-    ad_status st;
-    if (eas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check2(mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
-    *eas = (st == AD_OK) ? (AD_A0 * mach * ad_sqrt(ps / AD_P0)) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(eas, mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
+    return ad_i_finish(st, AD_A0 * mach * ad_sqrt(ps / AD_P0), eas);
+}
+
+/* A Mach number m from a speed (checked arguments in st) with the derived check
+ * m <= AD_MACH_LIMIT (10), through *mach (SPD-2 and SPD-3 inverted). */
+static ad_status ad_mach_of_speed(ad_status st, ad_real m, ad_real *mach)
+{
+    const ad_status derived = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
+    return ad_i_finish((st == AD_OK) ? derived : st, m, mach);
 }
 
 /* SPD-2 inverted: M = eas/(a0 sqrt(ps/p0)); derived check M <= AD_MACH_LIMIT (10). */
 ad_status ad_mach_from_eas(ad_real eas, ad_real ps, ad_real *mach)
 {
-    ad_status st;
-    ad_real m = (ad_real)0;
-    if (mach == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check2(eas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
-    if (st == AD_OK) {
-        m = eas / (AD_A0 * ad_sqrt(ps / AD_P0));
-        st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-    }
-    *mach = (st == AD_OK) ? m : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(mach, eas, AD_DOM_SPEED, ps, AD_DOM_PRESSURE);
+    return ad_mach_of_speed(st, eas / (AD_A0 * ad_sqrt(ps / AD_P0)), mach);
 }
 
 /* SPD-3: tas = M sqrt(gamma R sat), within 2 ulp. */
 ad_status ad_tas_from_mach(ad_real mach, ad_real sat, ad_real *tas)
 {
-    ad_status st;
-    if (tas == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check2(mach, AD_DOM_MACH, sat, AD_DOM_TEMPERATURE);
-    *tas = (st == AD_OK) ? (mach * ad_sqrt(AD_GAMMA_R * sat)) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(tas, mach, AD_DOM_MACH, sat, AD_DOM_TEMPERATURE);
+    return ad_i_finish(st, mach * ad_sqrt(AD_GAMMA_R * sat), tas);
 }
 
 /* SPD-3 inverted: M = tas/sqrt(gamma R sat); derived check M <= AD_MACH_LIMIT (10). */
 ad_status ad_mach_from_tas(ad_real tas, ad_real sat, ad_real *mach)
 {
-    ad_status st;
-    ad_real m = (ad_real)0;
-    if (mach == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check2(tas, AD_DOM_SPEED, sat, AD_DOM_TEMPERATURE);
-    if (st == AD_OK) {
-        m = tas / ad_sqrt(AD_GAMMA_R * sat);
-        st = (m > AD_MACH_LIMIT) ? AD_OUT_OF_RANGE : AD_OK;
-    }
-    *mach = (st == AD_OK) ? m : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(mach, tas, AD_DOM_SPEED, sat, AD_DOM_TEMPERATURE);
+    return ad_mach_of_speed(st, tas / ad_sqrt(AD_GAMMA_R * sat), mach);
 }
 
 /* SPD-4: q = 0.7 ps M^2, within 2 ulp. */
 ad_status ad_dynamic_pressure(ad_real mach, ad_real ps, ad_real *q)
 {
-    ad_status st;
-    if (q == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check2(mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
-    *q = (st == AD_OK) ? (AD_K_0P7 * ps * (mach * mach)) : ad_nan();
-    return st;
+    const ad_status st = ad_i_inputs2(q, mach, AD_DOM_MACH, ps, AD_DOM_PRESSURE);
+    return ad_i_finish(st, (AD_K_0P7 * ps * (mach * mach)), q);
 }

@@ -9,38 +9,30 @@
  */
 #include "ad_internal.h"
 
-static ad_status ad_check_tmr(ad_real temp, ad_real mach, ad_real recovery)
+/* The NULL rule, then temperature, Mach and recovery, in order. */
+static ad_status ad_tmr_inputs(const ad_real *out, ad_real temp, ad_real mach,
+                               ad_real recovery)
 {
-    ad_status st = ad_i_check(temp, AD_DOM_TEMPERATURE);
-    if (st == AD_OK) {
-        st = ad_i_check(mach, AD_DOM_MACH);
-    }
-    if (st == AD_OK) {
-        st = ad_i_check(recovery, AD_DOM_RECOVERY);
-    }
-    return st;
+    return ad_i_inputs3(out, temp, AD_DOM_TEMPERATURE, mach, AD_DOM_MACH, recovery,
+                        AD_DOM_RECOVERY);
+}
+
+/* TMP-1: the factor 1 + 0.2 recovery M^2 (three correctly rounded operations). */
+static ad_real ad_tmr_factor(ad_real mach, ad_real recovery)
+{
+    return AD_K_1 + AD_K_0P2 * recovery * (mach * mach);
 }
 
 /* TMP-1 solved for SAT: sat = tat/(1 + 0.2 recovery M^2). */
 ad_status ad_sat_from_tat(ad_real tat, ad_real mach, ad_real recovery, ad_real *sat)
 {
-    ad_status st;
-    if (sat == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check_tmr(tat, mach, recovery);
-    *sat = (st == AD_OK) ? (tat / (AD_K_1 + AD_K_0P2 * recovery * (mach * mach))) : ad_nan();
-    return st;
+    const ad_status st = ad_tmr_inputs(sat, tat, mach, recovery);
+    return ad_i_finish(st, tat / ad_tmr_factor(mach, recovery), sat);
 }
 
 /* TMP-1: tat = sat (1 + 0.2 recovery M^2). */
 ad_status ad_tat_from_sat(ad_real sat, ad_real mach, ad_real recovery, ad_real *tat)
 {
-    ad_status st;
-    if (tat == NULL) {
-        return AD_INVALID_INPUT;
-    }
-    st = ad_check_tmr(sat, mach, recovery);
-    *tat = (st == AD_OK) ? (sat * (AD_K_1 + AD_K_0P2 * recovery * (mach * mach))) : ad_nan();
-    return st;
+    const ad_status st = ad_tmr_inputs(tat, sat, mach, recovery);
+    return ad_i_finish(st, sat * ad_tmr_factor(mach, recovery), tat);
 }
