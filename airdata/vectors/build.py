@@ -199,8 +199,9 @@ def generate_seeds(spec: FunctionSpec, profile: Profile) -> list[CaseSeed]:
 
 
 @dataclass
-class FunctionCases:
-    """Evaluated cases of one function, as arrays in case order."""
+class EvaluatedCases:
+    """Evaluated cases of one function, as arrays in case order (what a suite file is
+    written from; a loaded suite file is :class:`airdata.portcheck.suite.FunctionCases`)."""
 
     ids: list[str]
     tags: list[tuple[str, ...]]
@@ -237,7 +238,7 @@ def evaluate_cases(spec: FunctionSpec, inputs: dict[str, F64], profile: Profile
     return y, scale, status, check32
 
 
-def compute_cases(spec: FunctionSpec, profile: Profile) -> FunctionCases:
+def compute_cases(spec: FunctionSpec, profile: Profile) -> EvaluatedCases:
     """Generate, deduplicate and evaluate every case of ``spec``."""
     ids, seeds = _dedupe(spec, generate_seeds(spec, profile))
     inputs = {a.name: np.array([s.inputs[a.name] for s in seeds], dtype=np.float64)
@@ -261,7 +262,7 @@ def compute_cases(spec: FunctionSpec, profile: Profile) -> FunctionCases:
             t.add("subnormal")
         assert t <= set(TAGS), t - set(TAGS)
         tags.append(tuple(sorted(t)))
-    return FunctionCases(ids, tags, inputs, y, scale, status, check32)
+    return EvaluatedCases(ids, tags, inputs, y, scale, status, check32)
 
 
 # ---------------------------------------------------------------------------------
