@@ -33,6 +33,7 @@ from pathlib import Path
 import pytest
 import toolchains
 
+import airdata.resources
 from airdata.portcheck.coverage import (
     MCDC_FLAGS,
     CoverageError,
@@ -330,6 +331,19 @@ def test_port_coverage_command_on_the_bundled_port(tmp_path: Path) -> None:
     assert "MC/DC conditions" in r.stdout and "altimetry.c:" in r.stdout
     assert "not certified flight software" in r.stdout
     assert report.is_file() and '"mcdc"' in report.read_text()
+
+
+def test_port_coverage_defaults_to_the_installed_suite(tmp_path: Path) -> None:
+    # run where there is no ./vectors: the suite this installation carries is measured
+    toolchain()
+    report = tmp_path / "cov.json"
+    env = dict(os.environ, PYTHONPATH=str(ROOT))
+    r = subprocess.run(["python3", "-m", "airdata", "port", "coverage", "--only",
+                        "tas_from_mach", "--precision", "single", "--report", str(report)],
+                       capture_output=True, text=True, timeout=600, env=env, cwd=tmp_path)
+    assert r.returncode == 0, r.stderr
+    assert "speeds.c" in r.stdout
+    assert json.loads(report.read_text())["suite"] == str(airdata.resources.suite_dir("icao"))
 
 
 def test_port_coverage_refuses_a_missing_source(tmp_path: Path) -> None:

@@ -12,6 +12,7 @@ import sys
 from pathlib import Path
 from typing import Any
 
+from .. import resources
 from ..portcheck.build import BUNDLED_C, PortBuildError
 from ..portcheck.coverage import (
     MCDC_FLAGS,
@@ -41,11 +42,13 @@ def cmd_coverage(args: argparse.Namespace) -> int:
     precisions = ["double", "single"] if args.precision == "both" else [args.precision]
     batch = {"auto": None, "yes": True, "no": False}[args.batch]
     try:
+        suite = args.suite if args.suite is not None else resources.suite_dir("icao")
         tools = find_toolchain()
-        figures = coverage_of_sources(sources, args.suite, precisions, includes,
+        figures = coverage_of_sources(sources, suite, precisions, includes,
                                       list(args.define), args.only or None, tools=tools,
                                       batch=batch)
-    except (CoverageError, SuiteError, PortBuildError, ValueError) as exc:
+    except (CoverageError, SuiteError, PortBuildError, resources.ResourceError,
+            ValueError) as exc:
         return fail("port coverage", str(exc), 2)
     versions = tool_versions(tools)
     print(render(label, figures, versions=versions))
@@ -55,7 +58,7 @@ def cmd_coverage(args: argparse.Namespace) -> int:
                "disclaimer": "An engineering and verification aid, not certified flight "
                              "software; coverage figures are evidence for a review.",
                "tool_versions": versions, "sources": [str(s) for s in sources],
-               "flags": list(MCDC_FLAGS), "suite": str(args.suite),
+               "flags": list(MCDC_FLAGS), "suite": str(suite),
                "measurements": {k: f.as_dict() for k, f in figures.items()}}
         Path(args.report).write_text(json.dumps(doc, indent=1) + "\n")
         print(f"report written to {args.report}")
@@ -73,8 +76,9 @@ def cmd_coverage(args: argparse.Namespace) -> int:
 def add_parser(sub: Any, epilog: str) -> None:
     """Add the ``coverage`` action to the ``port`` sub-parsers."""
     c = add_command(sub, "port coverage", epilog=epilog)
-    c.add_argument("--suite", default="vectors", metavar="DIR",
-                   help="vector suite directory (default: ./vectors)")
+    c.add_argument("--suite", default=None, metavar="DIR",
+                   help="vector suite directory (default: the checked-in icao suite that this "
+                        "installation carries; see 'airdata vectors path')")
     c.add_argument("--precision", choices=["double", "single", "both"], default="both",
                    help="binary64 (double), binary32 (single) or both (default)")
     c.add_argument("--source", nargs="+", metavar="FILE.c",
