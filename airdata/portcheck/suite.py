@@ -20,8 +20,9 @@ import numpy as np
 from numpy.typing import NDArray
 
 from ..vectors.catalogue import CATALOGUE
-from ..vectors.jsonio import VectorFileError, decode_number, load_json, sha256_hex
-from ..vectors.schema import SCHEMA_VERSION, function_schema, manifest_schema, validate
+from ..vectors.jsonio import VectorFileError, decode_number, load_json
+from ..vectors.schema import function_schema, manifest_schema, validate
+from ..vectors.suitefiles import read_listed, read_manifest, suite_root
 
 __all__ = ["SuiteError", "FunctionCases", "LoadedSuite", "load_cases", "B32_CODES"]
 
@@ -170,18 +171,15 @@ def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None
             root = resources.suite_dir(profile or "icao")
         except (resources.ResourceError, ValueError) as exc:
             raise SuiteError(str(exc)) from None
-    rootp = Path(root)
-    if not rootp.is_dir():
-        raise SuiteError(f"{rootp}: no vector suite here (not a directory); build one with "
-                         "'airdata vectors build' or pass --suite DIR")
     try:
-        manifest = load_json(rootp / "manifest.json")
+        rootp = suite_root(root)
+    except VectorFileError:
+        raise SuiteError(f"{Path(root)}: no vector suite here (not a directory); build one with "
+                         "'airdata vectors build' or pass --suite DIR") from None
+    try:
+        manifest = read_manifest(rootp)
     except VectorFileError as exc:
         raise SuiteError(str(exc)) from None
-    if not isinstance(manifest, dict) or manifest.get("schema_version") != SCHEMA_VERSION:
-        got = manifest.get("schema_version") if isinstance(manifest, dict) else None
-        raise SuiteError(f"{rootp / 'manifest.json'}: schema_version {got!r} is not "
-                         f"supported (this airdata reads {SCHEMA_VERSION})")
     errors = validate(manifest, manifest_schema())
     if errors:
         raise SuiteError(f"{rootp / 'manifest.json'}: schema violation: {errors[0]}")
@@ -202,13 +200,10 @@ def load_cases(root: str | Path | None = None, only: Sequence[str] | None = None
         entry = entries[name]
         rel = entry["path"]
         path = rootp / rel
-        if not path.is_file():
-            raise SuiteError(f"{path}: listed in the manifest but missing")
-        data = path.read_bytes()
-        if len(data) != entry["bytes"] or sha256_hex(data) != entry["sha256"]:
-            raise SuiteError(f"{path}: checksum mismatch (SHA-256 {sha256_hex(data)}, "
-                             f"{len(data)} bytes; the manifest says {entry['sha256']}, "
-                             f"{entry['bytes']} bytes)")
+        try:
+            read_listed(rootp, entry)
+        except VectorFileError as exc:
+            raise SuiteError(str(exc)) from None
         spec = _SPECS.get(name)
         if spec is None:
             raise SuiteError(f"{path}: function {name!r} is not known to this airdata")

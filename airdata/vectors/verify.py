@@ -26,7 +26,7 @@ from ..status import Status
 from .build import case_id, evaluate_cases, header_path, render_json
 from .catalogue import CATALOGUE, FunctionSpec
 from .cheader import render_common_header, render_function_header, render_umbrella_header
-from .jsonio import MAX_FILE_BYTES, VectorFileError, decode_number, load_json, sha256_hex
+from .jsonio import MAX_FILE_BYTES, VectorFileError, decode_number, load_json
 from .scale import EPS_BINARY64, K
 from .schema import (
     SCHEMA_VERSION,
@@ -37,6 +37,7 @@ from .schema import (
     schema_path_of_manifest,
     validate,
 )
+from .suitefiles import read_listed, read_manifest, suite_root
 
 __all__ = ["Problem", "VerifyReport", "Suite", "load_suite", "verify_suite"]
 
@@ -133,18 +134,9 @@ def load_suite(root: str | Path, problems: list[Problem] | None = None,
     cannot be read raises :class:`VectorFileError`.
     """
     probs = [] if problems is None else problems
-    rootp = Path(root)
-    if not rootp.is_dir():
-        raise VectorFileError(rootp, "not a directory" if rootp.exists() else "no such directory")
-    manifest = load_json(rootp / "manifest.json", max_bytes)
+    rootp = suite_root(root)
+    manifest = read_manifest(rootp, max_bytes)
     suite = Suite(rootp, manifest)
-    if not isinstance(manifest, dict):
-        raise VectorFileError(rootp / "manifest.json", "the manifest is not a JSON object")
-    if manifest.get("schema_version") != SCHEMA_VERSION:
-        raise VectorFileError(rootp / "manifest.json",
-                              f"schema_version {manifest.get('schema_version')!r} is not "
-                              f"supported by airdata {__version__} (it reads "
-                              f"{SCHEMA_VERSION})")
     mschema = manifest_schema()
     bad = _schema_problems("manifest.json", manifest, mschema)
     if bad:
@@ -154,19 +146,10 @@ def load_suite(root: str | Path, problems: list[Problem] | None = None,
     for entry in manifest["files"] + manifest["functions"]:
         rel = entry["path"]
         listed.add(rel)
-        p = rootp / rel
-        if not p.is_file():
-            probs.append(Problem(rel, None, "listed in the manifest but missing"))
-            continue
-        if p.stat().st_size > max_bytes:
-            probs.append(Problem(rel, None, f"file is {p.stat().st_size} bytes, more than "
-                                            f"the limit of {max_bytes}"))
-            continue
-        data = p.read_bytes()
-        if len(data) != entry["bytes"] or sha256_hex(data) != entry["sha256"]:
-            probs.append(Problem(rel, None, f"checksum mismatch: SHA-256 {sha256_hex(data)} "
-                                            f"({len(data)} bytes), manifest says "
-                                            f"{entry['sha256']} ({entry['bytes']} bytes)"))
+        try:
+            read_listed(rootp, entry, max_bytes)
+        except VectorFileError as exc:
+            probs.append(Problem(rel, None, exc.problem))
     for sub in ("functions", "schema", "c"):
         d = rootp / sub
         if d.is_dir():

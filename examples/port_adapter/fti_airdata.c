@@ -55,6 +55,7 @@
 #define ad_ceiling_margin fti_ref_ceiling_margin
 
 #include "domains.c"
+#include "inputs.c"
 #include "dd.c"
 #include "atmosphere.c"
 #include "altimetry.c"
