@@ -18,7 +18,7 @@ from .pitot import RATIO_LIMIT, RATIO_MAX, mach_from_ratio
 from .profiles import GAMMA, Profile, get_profile
 from .status import DomainError, Status
 
-__all__ = ["AirData", "air_data", "NOISE_BAND"]
+__all__ = ["AirData", "air_data", "NOISE_BAND", "AIR_DATA_OUTPUTS", "OutputInfo", "OUTPUT_INFO"]
 
 #: Default half-width of the band of negative impact pressure read as zero, Pa
 #: (airdata._domains.NOISE_BAND).
@@ -76,6 +76,49 @@ class AirData:
 #: the C record ``ad_air_data_t``): every field but ``status`` and ``profile``.
 AIR_DATA_OUTPUTS: tuple[str, ...] = tuple(f.name for f in fields(AirData)
                                           if f.name not in ("status", "profile"))
+
+
+@dataclass(frozen=True)
+class OutputInfo:
+    """How the package names and measures one output of :func:`air_data`.
+
+    Attributes
+    ----------
+    key : str
+        The :class:`AirData` field.
+    short : str
+        Its short name: the column of ``airdata reduce`` (``hp``, ``qc``, ...).
+    dimension : str
+        Its dimension in :mod:`airdata.units` (``length``, ``pressure``, ...).
+    si_unit : str
+        The SI unit of the value.
+    words : str
+        The output in words; ``symbol`` is its usual abbreviation, if any.
+    symbol : str
+    """
+
+    key: str
+    short: str
+    dimension: str
+    si_unit: str
+    words: str
+    symbol: str = ""
+
+
+#: Every output of :func:`air_data`, in the order of :data:`AIR_DATA_OUTPUTS`.
+OUTPUT_INFO: tuple[OutputInfo, ...] = (
+    OutputInfo("pressure_altitude", "hp", "length", "m", "pressure altitude"),
+    OutputInfo("baro_altitude", "hbaro", "length", "m", "baro-corrected altitude"),
+    OutputInfo("impact_pressure", "qc", "pressure", "Pa", "impact pressure", "qc"),
+    OutputInfo("mach", "mach", "dimensionless", "1", "Mach number"),
+    OutputInfo("cas", "cas", "speed", "m/s", "calibrated airspeed", "CAS"),
+    OutputInfo("eas", "eas", "speed", "m/s", "equivalent airspeed", "EAS"),
+    OutputInfo("tas", "tas", "speed", "m/s", "true airspeed", "TAS"),
+    OutputInfo("sat", "sat", "temperature", "K", "static air temperature", "SAT"),
+    OutputInfo("density", "rho", "density", "kg/m3", "air density"),
+    OutputInfo("density_altitude", "hd", "length", "m", "density altitude"),
+    OutputInfo("dynamic_pressure", "q", "pressure", "Pa", "dynamic pressure", "q"),
+)
 
 
 def check_noise_band(noise_band: float) -> None:

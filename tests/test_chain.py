@@ -265,3 +265,17 @@ def test_chain_statuses_for_derived_errors_non_strict() -> None:
             continue
         assert same_bits(got[0], getattr(ref, key)), key
         assert np.all(np.isnan(got[1:])), key
+
+
+def test_output_table_names_every_output_once_in_si() -> None:
+    # one table describes the chain's outputs for the whole package (reduce columns,
+    # recorded comparisons, compute's rows, port comparisons): the AirData fields in
+    # order, distinct short names, and each SI unit of the dimension it claims
+    from airdata import units as u
+    from airdata.chain import AIR_DATA_OUTPUTS, OUTPUT_INFO
+
+    assert tuple(o.key for o in OUTPUT_INFO) == AIR_DATA_OUTPUTS
+    assert len({o.short for o in OUTPUT_INFO}) == len(OUTPUT_INFO)
+    for o in OUTPUT_INFO:
+        dim, factor, offset = u.UNITS[o.si_unit]
+        assert (dim, factor, offset) == (o.dimension, 1, 0), o.key

@@ -14,7 +14,7 @@ import sys
 import numpy as np
 
 from .. import units as u
-from ..chain import NOISE_BAND, air_data
+from ..chain import NOISE_BAND, OUTPUT_INFO, air_data
 from ..profiles import get_profile
 from ..status import DomainError, Status
 from .parsers import add_command
@@ -34,19 +34,11 @@ __all__ = ["register", "run", "OUTPUT_ROWS"]
 COMMAND = "compute"
 
 #: (key of AirData, label, dimension) in display order.
-OUTPUT_ROWS: tuple[tuple[str, str, str], ...] = (
-    ("pressure_altitude", "pressure altitude", "length"),
-    ("baro_altitude", "baro-corrected altitude", "length"),
-    ("density_altitude", "density altitude", "length"),
-    ("impact_pressure", "impact pressure qc", "pressure"),
-    ("dynamic_pressure", "dynamic pressure q", "pressure"),
-    ("mach", "Mach number", "dimensionless"),
-    ("cas", "calibrated airspeed CAS", "speed"),
-    ("eas", "equivalent airspeed EAS", "speed"),
-    ("tas", "true airspeed TAS", "speed"),
-    ("sat", "static air temperature SAT", "temperature"),
-    ("density", "air density", "density"),
-)
+OUTPUT_ROWS: tuple[tuple[str, str, str], ...] = tuple(
+    (o.key, f"{o.words} {o.symbol}".rstrip(), o.dimension)
+    for key in ("pressure_altitude", "baro_altitude", "density_altitude", "impact_pressure",
+                "dynamic_pressure", "mach", "cas", "eas", "tas", "sat", "density")
+    for o in OUTPUT_INFO if o.key == key)
 
 DESCRIPTION = """\
 Compute every air-data output from one set of sensor readings: static pressure,

@@ -28,7 +28,7 @@ import numpy as np
 from numpy.typing import NDArray
 
 from ..chain import AIR_DATA_OUTPUTS as _OUTPUTS
-from ..chain import AirData
+from ..chain import OUTPUT_INFO, AirData
 from ..profiles import get_profile
 from ..status import Status
 from .recorded import RecordedColumn, RecordedComparison  # kept importable from here
@@ -38,9 +38,7 @@ __all__ = ["Disagreement", "Comparison", "port_air_data", "compare_chunk", "avai
 
 F64 = NDArray[np.float64]
 
-_SI_UNITS = {"pressure_altitude": "m", "baro_altitude": "m", "impact_pressure": "Pa",
-             "mach": "1", "cas": "m/s", "eas": "m/s", "tas": "m/s", "sat": "K",
-             "density": "kg/m3", "density_altitude": "m", "dynamic_pressure": "Pa"}
+_SI_UNITS = {o.key: o.si_unit for o in OUTPUT_INFO}
 
 
 def available() -> bool:

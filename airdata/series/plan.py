@@ -10,6 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from .. import units as u
+from ..chain import OUTPUT_INFO
 from .csvio import ChunkReader, Column, HeaderError
 from .options import ReduceOptions
 from .recorded import RECORDED, RECORDED_SUFFIX, RecordedColumn, recorded_names
@@ -17,19 +18,8 @@ from .recorded import RECORDED, RECORDED_SUFFIX, RecordedColumn, recorded_names
 __all__ = ["OUTPUTS", "ROLES", "Plan", "UsageError", "plan"]
 
 #: (key of AirData, column name, dimension) of every output, in output order.
-OUTPUTS: tuple[tuple[str, str, str], ...] = (
-    ("pressure_altitude", "hp", "length"),
-    ("baro_altitude", "hbaro", "length"),
-    ("impact_pressure", "qc", "pressure"),
-    ("mach", "mach", "dimensionless"),
-    ("cas", "cas", "speed"),
-    ("eas", "eas", "speed"),
-    ("tas", "tas", "speed"),
-    ("sat", "sat", "temperature"),
-    ("density", "rho", "density"),
-    ("density_altitude", "hd", "length"),
-    ("dynamic_pressure", "q", "pressure"),
-)
+OUTPUTS: tuple[tuple[str, str, str], ...] = tuple((o.key, o.short, o.dimension)
+                                                  for o in OUTPUT_INFO)
 
 #: Input roles: (role, dimension or None for any unit, required).
 ROLES: tuple[tuple[str, str | None, bool], ...] = (

@@ -11,7 +11,7 @@ from typing import Any
 import numpy as np
 from numpy.typing import NDArray
 
-from ..chain import AirData
+from ..chain import OUTPUT_INFO, AirData
 
 __all__ = ["RECORDED", "RECORDED_SUFFIX", "BANDS", "BAND_EDGES_BY_UNIT", "band_scheme",
            "recorded_names", "band_labels", "RecordedColumn", "RecordedComparison"]
@@ -21,19 +21,10 @@ F64 = NDArray[np.float64]
 
 #: Outputs a file may carry as recorded values, ``<name>_rec[unit]``:
 #: (AirData key, short name, dimension, band kind, words).
-RECORDED: tuple[tuple[str, str, str, str, str], ...] = (
-    ("pressure_altitude", "hp", "length", "altitude", "pressure altitude"),
-    ("baro_altitude", "hbaro", "length", "altitude", "baro-corrected altitude"),
-    ("impact_pressure", "qc", "pressure", "cas", "impact pressure"),
-    ("mach", "mach", "dimensionless", "mach", "Mach number"),
-    ("cas", "cas", "speed", "cas", "calibrated airspeed"),
-    ("eas", "eas", "speed", "cas", "equivalent airspeed"),
-    ("tas", "tas", "speed", "mach", "true airspeed"),
-    ("sat", "sat", "temperature", "mach", "static air temperature"),
-    ("density", "rho", "density", "altitude", "air density"),
-    ("density_altitude", "hd", "length", "altitude", "density altitude"),
-    ("dynamic_pressure", "q", "pressure", "mach", "dynamic pressure"),
-)
+RECORDED: tuple[tuple[str, str, str, str, str], ...] = tuple(
+    (o.key, o.short, o.dimension, kind, o.words) for o, kind in zip(OUTPUT_INFO, (
+        "altitude", "altitude", "cas", "mach", "cas", "cas", "mach", "mach", "altitude",
+        "altitude", "mach"), strict=True))
 
 #: Suffix that marks a recorded output column.
 RECORDED_SUFFIX = "_rec"
